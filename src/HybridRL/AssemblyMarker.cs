@@ -1,0 +1,1 @@
+namespace HybridRL; internal static class AssemblyMarker {}
