@@ -65,7 +65,8 @@ public sealed class CheckpointWriter
     public Stream BeginSection(string name)
     {
         var buffer = new MemoryStream();
-        AddStreamSection(name, s => s.Write(buffer.GetBuffer().AsSpan(0, (int)buffer.Length)));
+        // ToArray works whether or not the caller has disposed the stream.
+        AddStreamSection(name, s => s.Write(buffer.ToArray()));
         return buffer;
     }
 
