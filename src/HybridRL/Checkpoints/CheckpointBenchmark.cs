@@ -1,3 +1,4 @@
+using HybridRL.Training;
 using System.Diagnostics;
 using HybridRL.Quantum.Randomness;
 
@@ -34,7 +35,7 @@ public static class CheckpointBenchmark
                 new("replay-sampling", RandomStream.FromRoot(7, "replay-sampling")),
                 new("exploration", RandomStream.FromRoot(7, "exploration")),
             };
-            var counters = new CheckpointCounters { EnvSteps = Transitions, Episodes = 500, Updates = 25_000, MetricsRows = 100 };
+            var counters = new TrainingCounters { EnvSteps = Transitions, Episodes = 500, Updates = 25_000, MetricsRows = 100 };
 
             var writer = new CheckpointWriter()
                 .AddSection(CheckpointSections.Parameters, w => w.WriteDoubles(parameters))

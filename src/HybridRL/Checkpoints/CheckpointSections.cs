@@ -1,3 +1,4 @@
+using HybridRL.Training;
 namespace HybridRL.Checkpoints;
 
 /// <summary>
@@ -16,6 +17,6 @@ public static class CheckpointSections
     public const string RandomStreams = "random-streams";
     /// <summary>State of every environment copy.</summary>
     public const string Environments = "environments";
-    /// <summary>Progress counters and the metrics cursor (<see cref="CheckpointCounters"/>).</summary>
+    /// <summary>Progress counters and the metrics cursor (<see cref="TrainingCounters"/>).</summary>
     public const string Counters = "counters";
 }

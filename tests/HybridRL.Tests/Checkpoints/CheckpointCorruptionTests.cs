@@ -1,3 +1,4 @@
+using HybridRL.Training;
 using HybridRL.Checkpoints;
 
 namespace HybridRL.Tests.Checkpoints;
@@ -10,7 +11,7 @@ public class CheckpointCorruptionTests
         new CheckpointWriter()
             .AddSection("parameters", w => w.WriteDoubles([1.0, 2.0, 3.0]))
             .AddSection("trainer", w => { w.Write(7); w.Write("population"); })
-            .AddSection("counters", new CheckpointCounters { EnvSteps = 5 })
+            .AddSection("counters", new TrainingCounters { EnvSteps = 5 })
             .Save(dir, 3, Header, 1.0);
 
     [Fact]

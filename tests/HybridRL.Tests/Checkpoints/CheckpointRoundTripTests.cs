@@ -1,3 +1,4 @@
+using HybridRL.Training;
 using HybridRL.Checkpoints;
 using HybridRL.Quantum.Randomness;
 
@@ -52,7 +53,7 @@ public class CheckpointRoundTripTests
 
         var envs = new[] { new ToyEnvironment { Position = 3, Velocity = -0.25 }, new ToyEnvironment { Position = -9, Velocity = 1e-300 } };
         envs[1].Noise.NextUInt64();
-        var counters = new CheckpointCounters { EnvSteps = 123_456, Episodes = 789, Updates = 3_000, Generations = 0, CircuitExecutions = 1L << 40, Shots = 5, HardwareExecutions = 6, WallSeconds = 12.75, MetricsRows = 31 };
+        var counters = new TrainingCounters { EnvSteps = 123_456, Episodes = 789, Updates = 3_000, Generations = 0, CircuitExecutions = 1L << 40, Shots = 5, HardwareExecutions = 6, WallSeconds = 12.75, MetricsRows = 31 };
         var created = new DateTime(2025, 3, 4, 5, 6, 7, DateTimeKind.Utc);
 
         var writer = new CheckpointWriter()
@@ -117,7 +118,7 @@ public class CheckpointRoundTripTests
             }
         }
 
-        var c2 = new CheckpointCounters();
+        var c2 = new TrainingCounters();
         r.Load(CheckpointSections.Counters, c2);
         Assert.Equal((counters.EnvSteps, counters.Episodes, counters.Updates, counters.Generations, counters.CircuitExecutions, counters.Shots, counters.HardwareExecutions, counters.WallSeconds, counters.MetricsRows),
                      (c2.EnvSteps, c2.Episodes, c2.Updates, c2.Generations, c2.CircuitExecutions, c2.Shots, c2.HardwareExecutions, c2.WallSeconds, c2.MetricsRows));
@@ -136,9 +137,9 @@ public class CheckpointRoundTripTests
     public void LoadRejectsAReaderThatLeavesBytesUnread()
     {
         using var tmp = new TempDirectory();
-        string path = new CheckpointWriter().AddSection("counters", w => { new CheckpointCounters().Save(w); w.Write(1); }).Save(tmp.Path, 1, Header, null);
+        string path = new CheckpointWriter().AddSection("counters", w => { new TrainingCounters().Save(w); w.Write(1); }).Save(tmp.Path, 1, Header, null);
         using var r = CheckpointReader.Open(path);
-        var ex = Assert.Throws<InvalidDataException>(() => r.Load("counters", new CheckpointCounters()));
+        var ex = Assert.Throws<InvalidDataException>(() => r.Load("counters", new TrainingCounters()));
         Assert.Contains("4 unread bytes", ex.Message);
     }
 

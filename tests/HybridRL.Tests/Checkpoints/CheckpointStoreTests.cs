@@ -1,3 +1,4 @@
+using HybridRL.Training;
 using HybridRL.Checkpoints;
 
 namespace HybridRL.Tests.Checkpoints;
@@ -9,7 +10,7 @@ public class CheckpointStoreTests
     private static string Save(string dir, long step, double? score = null, int keep = 3) =>
         new CheckpointWriter()
             .AddSection("parameters", w => w.WriteDoubles([step, step + 0.5]))
-            .AddSection("counters", new CheckpointCounters { EnvSteps = step })
+            .AddSection("counters", new TrainingCounters { EnvSteps = step })
             .Save(dir, step, Header, score, keep);
 
     private static long[] Steps(string dir) => CheckpointStore.List(dir).Select(c => c.Step).OrderBy(s => s).ToArray();

@@ -1,3 +1,4 @@
+using HybridRL.Training;
 using HybridRL.Experiments.Runs;
 
 namespace HybridRL.Tests.Checkpoints;

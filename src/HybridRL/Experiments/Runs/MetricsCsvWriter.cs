@@ -1,3 +1,4 @@
+using HybridRL.Training;
 using System.Globalization;
 using System.Text;
 using HybridRL.Checkpoints;

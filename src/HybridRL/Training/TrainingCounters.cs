@@ -1,11 +1,13 @@
-namespace HybridRL.Checkpoints;
+using HybridRL.Checkpoints;
+
+namespace HybridRL.Training;
 
 /// <summary>
 /// Progress counters shared by both trainers plus the metrics cursor (how many rows metrics.csv held when the
 /// checkpoint was written, so a resume can truncate the file back and never duplicate rows).
 /// Stored in the <see cref="CheckpointSections.Counters"/> section.
 /// </summary>
-public sealed class CheckpointCounters : IStateful
+public sealed class TrainingCounters : IStateful
 {
     private const int Version = 1;
 

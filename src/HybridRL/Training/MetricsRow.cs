@@ -1,4 +1,4 @@
-namespace HybridRL.Experiments.Runs;
+namespace HybridRL.Training;
 
 /// <summary>
 /// One metrics.csv row (one logging interval). Columns follow the shared header; a null value is written
@@ -23,4 +23,18 @@ public sealed record MetricsRow
     public long? Shots { get; init; }
     public long? HardwareExecutions { get; init; }
     public long? ParameterCount { get; init; }
+
+    /// <summary>A row holding the shared counters; trainers fill in their own cells.</summary>
+    public static MetricsRow FromCounters(TrainingCounters c, long parameterCount) => new()
+    {
+        EnvSteps = c.EnvSteps,
+        Episodes = c.Episodes,
+        Updates = c.Updates,
+        Generations = c.Generations,
+        WallSeconds = c.WallSeconds,
+        CircuitExecutions = c.CircuitExecutions,
+        Shots = c.Shots,
+        HardwareExecutions = c.HardwareExecutions,
+        ParameterCount = parameterCount,
+    };
 }
