@@ -49,7 +49,7 @@ public static class ValueIteration
             {
                 double q = Backup(model, v, s, a, gamma);
                 qValues[s * na + a] = q;
-                if (q > best + 1e-12 * Math.Max(1, Math.Abs(best))) { best = q; policy[s] = a; }
+                if (a == 0 || q > best + 1e-12 * Math.Max(1, Math.Abs(best))) { best = q; policy[s] = a; }
             }
         }
         double start = 0;

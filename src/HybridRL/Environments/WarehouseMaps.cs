@@ -22,12 +22,12 @@ public static class WarehouseMaps
 
     public static bool TryGet(string name, out string text) => Maps.TryGetValue(name, out text!);
 
-    /// <summary>Resolves a <c>map</c> parameter: a built-in map name, or a text map (containing '/' or a newline).</summary>
+    /// <summary>Resolves a <c>map</c> parameter: a built-in map name, or a text map (only legend characters, rows separated by '/' or newlines).</summary>
     public static GridMap Resolve(string value, string key = "map")
     {
         if (TryGet(value, out var text)) return GridMap.Parse(text, key);
-        if (value.Contains('/') || value.Contains('\n')) return GridMap.Parse(value, key);
+        if (value.All(ch => ".#oRD/\n\r \t".Contains(ch))) return GridMap.Parse(value, key);
         throw new EnvironmentConfigException(key,
-            $"parameter '{key}' is '{value}', which is neither a built-in map ({string.Join(", ", Names)}) nor a text map (rows separated by '/' or newlines)");
+            $"parameter '{key}' is '{value}', which is neither a built-in map ({string.Join(", ", Names)}) nor a text map (legend '.', '#', 'o', 'R', 'D'; rows separated by '/' or newlines)");
     }
 }
