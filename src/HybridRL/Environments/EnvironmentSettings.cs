@@ -10,7 +10,8 @@ public abstract class EnvironmentSettings
     protected EnvironmentSettings(string kind, IReadOnlyDictionary<string, string> values)
     {
         Kind = kind;
-        Values = new SortedDictionary<string, string>(values.ToDictionary(p => p.Key, p => p.Value), StringComparer.Ordinal);
+        // The reader's resolved table is handed over and never changed after parsing completes.
+        Values = values;
     }
 
     /// <summary>Environment kind (e.g. <c>slippery-warehouse</c>).</summary>

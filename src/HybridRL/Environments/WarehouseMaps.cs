@@ -26,7 +26,7 @@ public static class WarehouseMaps
     public static GridMap Resolve(string value, string key = "map")
     {
         if (TryGet(value, out var text)) return GridMap.Parse(text, key);
-        if (value.All(ch => ".#oRD/\n\r \t".Contains(ch))) return GridMap.Parse(value, key);
+        if (value.Contains('/') || value.Contains('\n') || value.All(ch => ".#oRD \t".Contains(ch))) return GridMap.Parse(value, key);
         throw new EnvironmentConfigException(key,
             $"parameter '{key}' is '{value}', which is neither a built-in map ({string.Join(", ", Names)}) nor a text map (legend '.', '#', 'o', 'R', 'D'; rows separated by '/' or newlines)");
     }
