@@ -146,6 +146,12 @@ public sealed class CmaEvolutionStrategy : EvolutionStrategyBase
     /// <summary>Evolution path for C.</summary>
     public ReadOnlySpan<double> CovariancePath => _pC;
 
+    /// <summary>B (row-major, column k = k-th eigenvector of C); empty in the diagonal model.</summary>
+    internal ReadOnlySpan<double> EigenBasis => _b;
+
+    /// <summary>D: square roots of C's eigenvalues (of its diagonal in the diagonal model).</summary>
+    internal ReadOnlySpan<double> AxisLengths => _d;
+
     /// <summary>Entry (i, j) of the covariance matrix C (zero off the diagonal in the diagonal model).</summary>
     public double Covariance(int i, int j)
     {
