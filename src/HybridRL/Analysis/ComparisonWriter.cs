@@ -1,3 +1,4 @@
+using HybridRL.Checkpoints;
 using System.Globalization;
 using System.Text;
 using HybridRL.Analysis.Ledger;

@@ -1,3 +1,4 @@
+using HybridRL.Checkpoints;
 using System.Text;
 using HybridRL.Analysis.Ledger;
 using HybridRL.Analysis.Plots;

@@ -52,6 +52,28 @@ public static class AtomicFile
         DirectorySync.TrySync(dir);
     }
 
+    /// <summary>
+    /// For writers that only take a path (plot exporters): <paramref name="write"/> writes a temporary file with the
+    /// same extension, which is then renamed over <paramref name="path"/>.
+    /// </summary>
+    public static void WriteViaPath(string path, Action<string> write)
+    {
+        ArgumentNullException.ThrowIfNull(write);
+        string full = Path.GetFullPath(path);
+        string dir = Path.GetDirectoryName(full) ?? throw new ArgumentException($"path '{path}' has no directory", nameof(path));
+        Directory.CreateDirectory(dir);
+        string temp = TempPathFor(full) + Path.GetExtension(full);
+        try
+        {
+            write(temp);
+            File.Move(temp, full, overwrite: true);
+        }
+        finally
+        {
+            TryDelete(temp);
+        }
+    }
+
     /// <summary>A fresh temporary name next to <paramref name="fullPath"/>; such names are ignored by checkpoint readers.</summary>
     internal static string TempPathFor(string fullPath)
     {

@@ -1,3 +1,4 @@
+using HybridRL.Checkpoints;
 using ScottPlot;
 
 namespace HybridRL.Analysis.Plots;
@@ -12,8 +13,8 @@ public static class PlotFiles
     public static IReadOnlyList<string> Save(Plot plot, string basePath)
     {
         string png = basePath + ".png", svg = basePath + ".svg";
-        AtomicFile.Write(png, tmp => plot.SavePng(tmp, Width, Height));
-        AtomicFile.Write(svg, tmp => plot.SaveSvg(tmp, Width, Height));
+        AtomicFile.WriteViaPath(png, tmp => plot.SavePng(tmp, Width, Height));
+        AtomicFile.WriteViaPath(svg, tmp => plot.SaveSvg(tmp, Width, Height));
         return [png, svg];
     }
 
