@@ -57,6 +57,6 @@ public static class KeySuggester
             var d = Distance(value.ToLowerInvariant(), c);
             if (d < bestDistance) { bestDistance = d; best = c; }
         }
-        return best is not null && bestDistance <= Math.Max(1, value.Length / 3) ? best : null;
+        return best is not null && bestDistance <= Math.Max(2, value.Length / 3) ? best : null;
     }
 }

@@ -30,6 +30,7 @@ internal sealed class LayeredConfiguration
         for (var i = _providers.Count - 1; i >= 0; i--)
         {
             var p = _providers[i];
+            if (MaskedByAncestor(p, key)) return null; // "section: ~" in a higher layer removes the whole section below it
             var hasScalar = p.TryGet(key, out var scalar);
             var children = p.GetChildKeys(Array.Empty<string>(), key).Distinct(StringComparer.OrdinalIgnoreCase).ToList();
             if (!hasScalar && children.Count == 0) continue;
@@ -46,6 +47,13 @@ internal sealed class LayeredConfiguration
             return new LayerValue(i, hasScalar, scalar, childValues, origin);
         }
         return null;
+    }
+
+    private static bool MaskedByAncestor(IConfigurationProvider p, string key)
+    {
+        for (var cut = key.IndexOf(':'); cut > 0; cut = key.IndexOf(':', cut + 1))
+            if (p.TryGet(key[..cut], out var v) && v is null) return true;
+        return false;
     }
 
     /// <summary>Every flattened key any layer defines, with the origin from the highest layer defining it.</summary>

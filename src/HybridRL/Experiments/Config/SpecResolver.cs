@@ -27,7 +27,7 @@ internal sealed class SpecResolver
     public ExperimentSpec Resolve()
     {
         // 1. Layers.
-        foreach (var file in _files) AddFile(file, [], null, null);
+        foreach (var file in _files) AddFile(file, file, [], null, null);
         _sources.Add(OverrideLayers.FromEnvironment(_environment));
         _sources.Add(OverrideLayers.FromSetOptions(_sets, _errors));
         ThrowIfErrors();
@@ -69,7 +69,7 @@ internal sealed class SpecResolver
         return string.IsNullOrEmpty(stem) ? "experiment" : stem;
     }
 
-    private void AddFile(string path, IReadOnlyList<string> chain, YamlConfigFile? from, int? fromLine)
+    private void AddFile(string path, string shownName, IReadOnlyList<string> chain, YamlConfigFile? from, int? fromLine)
     {
         var full = Path.GetFullPath(path);
         if (chain.Contains(full, StringComparer.Ordinal))
@@ -82,7 +82,7 @@ internal sealed class SpecResolver
         if (from is not null && !File.Exists(full))
         {
             _errors.Add(new ConfigError("extends", from.DisplayPath, fromLine,
-                $"base file '{path}' named by extends was not found (looked for {full}; extends paths are relative to the file that names them)"));
+                $"base file '{shownName}' named by extends was not found (looked for {full}; extends paths are relative to the file that names them)"));
             return;
         }
         var file = YamlConfigFile.Read(full);
@@ -94,7 +94,7 @@ internal sealed class SpecResolver
         if (file.Extends is { } baseName)
         {
             var basePath = Path.Combine(Path.GetDirectoryName(full)!, baseName);
-            AddFile(basePath, chain.Append(full).ToList(), file, file.ExtendsLine);
+            AddFile(basePath, baseName, chain.Append(full).ToList(), file, file.ExtendsLine);
         }
         _included.Add(full);
         _sources.Add(new YamlConfigurationSource(file));

@@ -27,16 +27,23 @@ internal static class SpecYamlWriter
     public static List<(string Path, string Value, ConfigKey? Key)> Flatten(ExperimentSpec spec)
     {
         var result = new List<(string, string, ConfigKey?)>();
-        var choices = new Dictionary<string, string>(StringComparer.Ordinal);
         var applies = new Dictionary<string, bool>(StringComparer.Ordinal);
+        bool Applies(ConfigKey key)
+        {
+            if (applies.TryGetValue(key.Path, out var known)) return known;
+            var ok = key.AppliesWhen.All(c =>
+            {
+                var target = ConfigKeyTable.Find(c.Key)!;
+                return Applies(target) && target.Read(spec) is string v && c.Values.Contains(v);
+            });
+            applies[key.Path] = ok;
+            return ok;
+        }
         foreach (var key in ConfigKeyTable.All)
         {
-            var ok = key.AppliesWhen.All(c => applies.GetValueOrDefault(c.Key) && choices.TryGetValue(c.Key, out var v) && c.Values.Contains(v));
-            applies[key.Path] = ok;
-            if (!ok) continue;
+            if (!Applies(key)) continue;
             var value = key.Read(spec);
             if (value is null) continue;
-            if (key.Kind == ConfigValueKind.Choice) choices[key.Path] = (string)value;
             result.Add((key.Path, ConfigValueFormat.Format(key.Kind, value), key));
             if (key.Path == "environment.kind")
             {
