@@ -169,6 +169,13 @@ public sealed class ExperimentSpecLoaderTests : IDisposable
     }
 
     [Fact]
+    public void A_zero_byte_file_is_reported_as_empty()
+    {
+        var ex = Assert.Throws<ConfigException>(() => Load(_dir.Write("zero.yaml", "")));
+        Assert.Contains("is empty", Assert.Single(ex.Errors).Message);
+    }
+
+    [Fact]
     public void All_errors_are_reported_together_with_file_and_line()
     {
         var file = _dir.Write("many.yaml", """

@@ -15,6 +15,7 @@ internal sealed class SpecResolver
     private readonly List<IConfigurationSource> _sources = new();
     private readonly HashSet<string> _included = new(StringComparer.Ordinal);
     private ConfigOrigin? _lastFile;
+    private ResolvedValues? _values;
 
     public SpecResolver(IReadOnlyList<string> files, IReadOnlyList<string> sets, IDictionary<string, string> environment, IEnvironmentKeyValidator? validator)
     {
@@ -40,7 +41,7 @@ internal sealed class SpecResolver
         var layers = new LayeredConfiguration(builder.Build());
 
         // 2. Keys, types, ranges.
-        var values = new ResolvedValues(_errors, _lastFile);
+        var values = _values = new ResolvedValues(_errors, _lastFile);
         CheckKeys(layers);
         foreach (var key in ConfigKeyTable.All) ResolveKey(key, layers, values);
         var parameters = layers.ResolveTree("environment", new HashSet<string>(StringComparer.OrdinalIgnoreCase) { "environment:kind" });
@@ -367,7 +368,7 @@ internal sealed class SpecResolver
         if (_validator.DescribeShape(spec.Environment.Kind, spec.Environment.Parameters) is not { } shape) return;
         foreach (var (key, message) in EncodingCompatibility.Check(spec.Model, spec.Environment.Kind, shape))
         {
-            var origin = _lastFile;
+            var origin = _values?.Origin(key) ?? _values?.Origin("model.circuit.encoding") ?? _lastFile;
             _errors.Add(new ConfigError(key, origin?.Source, origin?.Line, message));
         }
     }
