@@ -7,14 +7,14 @@ namespace HybridRL.Models;
 
 /// <summary>
 /// Fully connected network: hidden layers with a nonlinearity, linear output layer.
-/// Flat parameter order: for each layer ℓ = 0..L-1, weight ℓ ([out, in], row-major) then bias ℓ ([out]).
+/// Flat parameter order (one parameter tensor <c>weights</c>): for each layer ℓ = 0..L-1, weight ℓ ([out, in], row-major) then bias ℓ ([out]).
 /// Initialisation: weights and biases uniform in ±1/√fan_in (common practice; the same bounds as
 /// PyTorch's default linear layer, from memory), drawn from the given random stream in flat order.
 /// </summary>
 public sealed class DenseNetwork : nn.Module<Tensor, Tensor>, IModelStage
 {
     private readonly int[] _sizes;
-    private readonly List<Parameter> _ordered = new();
+    private readonly Parameter _weights;
     private readonly Activation _activation;
 
     public DenseNetwork(string name, int inputSize, IReadOnlyList<int> hiddenSizes, int outputSize, Activation activation, RandomStream random)
@@ -27,6 +27,7 @@ public sealed class DenseNetwork : nn.Module<Tensor, Tensor>, IModelStage
         Name = name;
         _activation = activation;
         _sizes = [inputSize, .. hiddenSizes, outputSize];
+        var values = new List<double>();
         for (int l = 0; l + 1 < _sizes.Length; l++)
         {
             int fanIn = _sizes[l], fanOut = _sizes[l + 1];
@@ -35,14 +36,12 @@ public sealed class DenseNetwork : nn.Module<Tensor, Tensor>, IModelStage
             for (int i = 0; i < w.Length; i++) w[i] = (2.0 * random.NextDouble() - 1.0) * bound;
             var b = new double[fanOut];
             for (int i = 0; i < b.Length; i++) b[i] = (2.0 * random.NextDouble() - 1.0) * bound;
-            var wp = TensorMemory.NewParameter(w, fanOut, fanIn);
-            var bp = TensorMemory.NewParameter(b, fanOut);
-            register_parameter($"weight{l}", wp);
-            register_parameter($"bias{l}", bp);
-            _ordered.Add(wp);
-            _ordered.Add(bp);
-            ParameterCount += w.Length + b.Length;
+            values.AddRange(w);
+            values.AddRange(b);
         }
+        ParameterCount = values.Count;
+        _weights = TensorMemory.NewParameter([.. values], values.Count);
+        register_parameter("weights", _weights);
         int widest = 0;
         foreach (int s in _sizes) widest = Math.Max(widest, s);
         ScratchSize = 2 * widest;
@@ -53,7 +52,7 @@ public sealed class DenseNetwork : nn.Module<Tensor, Tensor>, IModelStage
     public int OutputSize => _sizes[^1];
     public int ParameterCount { get; }
     public int ScratchSize { get; }
-    public IReadOnlyList<Parameter> OrderedParameters => _ordered;
+    public Parameter Weights => _weights;
 
     /// <summary>Layer widths including input and output.</summary>
     public IReadOnlyList<int> LayerSizes => _sizes;
@@ -73,9 +72,14 @@ public sealed class DenseNetwork : nn.Module<Tensor, Tensor>, IModelStage
         using var scope = torch.NewDisposeScope();
         Tensor h = input;
         int layers = _sizes.Length - 1;
+        long o = 0;
         for (int l = 0; l < layers; l++)
         {
-            h = nn.functional.linear(h, _ordered[2 * l], _ordered[2 * l + 1]);
+            int fanIn = _sizes[l], fanOut = _sizes[l + 1];
+            var w = _weights.narrow(0, o, fanIn * fanOut).view(fanOut, fanIn);
+            var bias = _weights.narrow(0, o + fanIn * fanOut, fanOut);
+            o += fanIn * fanOut + fanOut;
+            h = nn.functional.linear(h, w, bias);
             if (l + 1 < layers) h = _activation == Activation.Relu ? nn.functional.relu(h) : h.tanh();
         }
         return h.MoveToOuterDisposeScope();

@@ -3,8 +3,8 @@ using static TorchSharp.torch;
 namespace HybridRL.Models;
 
 /// <summary>
-/// One differentiable stage of a model (compressor, network). It owns an ordered list of parameters
-/// (the order of the flat vector) and evaluates itself two ways: as TorchSharp ops with autograd, and as
+/// One differentiable stage of a model (compressor, network). It owns one flat parameter tensor
+/// (its slice of the model's flat vector) and evaluates itself two ways: as TorchSharp ops with autograd, and as
 /// managed code on one row with parameters taken from any flat slice (acting and population paths).
 /// </summary>
 internal interface IModelStage
@@ -15,8 +15,8 @@ internal interface IModelStage
     int OutputSize { get; }
     int ParameterCount { get; }
 
-    /// <summary>Parameters in flat-vector order.</summary>
-    IReadOnlyList<TorchSharp.Modules.Parameter> OrderedParameters { get; }
+    /// <summary>All trainable values of the stage as one 1-D parameter, in the stage's documented flat order.</summary>
+    TorchSharp.Modules.Parameter Weights { get; }
 
     /// <summary>[B, InputSize] → [B, OutputSize], autograd-capable.</summary>
     Tensor Forward(Tensor input);

@@ -23,7 +23,7 @@ namespace HybridRL.Models;
 /// Euler's theorem for degree-0 homogeneous functions their gradient contribution is zero.
 /// </para>
 /// <para>
-/// Flat parameter order: <c>sites</c> [N-1, 2, χ, χ] (sites 0..N-1 except m, in order; then p, row, column),
+/// Flat parameter order (one parameter tensor <c>weights</c>): <c>sites</c> [N-1, 2, χ, χ] (sites 0..N-1 except m, in order; then p, row, column),
 /// then <c>middle</c> [2, d, χ, χ] (p, k, row, column).
 /// Initialisation (near identity): A_i[0] = I + ε, A_i[1] = J/√N + ε, where J is block-diagonal with
 /// 2×2 blocks [[0,-1],[1,0]], so each M_i is close to a scaled rotation (never singular); ε ~ N(0, 0.01²);
@@ -33,9 +33,8 @@ namespace HybridRL.Models;
 public sealed class MpsCompressor : nn.Module<Tensor, Tensor>, IModelStage
 {
     private const double NoiseScale = 0.01;
-    private readonly Parameter _sites;
-    private readonly Parameter _middle;
-    private readonly List<Parameter> _ordered;
+    private readonly Parameter _weights;
+    private readonly int _sitesLength;
     private readonly Tensor _identity;   // [χ*χ]
     private readonly Tensor _boundary;   // [χ]
     private readonly double _boundaryValue;
@@ -73,11 +72,9 @@ public sealed class MpsCompressor : nn.Module<Tensor, Tensor>, IModelStage
         var middle = new double[2 * outputSize * chi2];
         for (int i = 0; i < middle.Length; i++) middle[i] = random.NextGaussian();
 
-        _sites = TensorMemory.NewParameter(sites, inputSize - 1, 2, chi, chi);
-        _middle = TensorMemory.NewParameter(middle, 2, outputSize, chi, chi);
-        register_parameter("sites", _sites);
-        register_parameter("middle", _middle);
-        _ordered = [_sites, _middle];
+        _sitesLength = sites.Length;
+        _weights = TensorMemory.NewParameter([.. sites, .. middle], sites.Length + middle.Length);
+        register_parameter("weights", _weights);
         _identity = torch.eye(chi, dtype: ScalarType.Float64).reshape(chi2);
         _boundaryValue = 1.0 / Math.Sqrt(chi);
         _boundary = torch.full(chi, _boundaryValue, dtype: ScalarType.Float64);
@@ -94,16 +91,16 @@ public sealed class MpsCompressor : nn.Module<Tensor, Tensor>, IModelStage
     public int MiddleSite { get; }
     public int ParameterCount { get; }
     public int ScratchSize { get; }
-    public IReadOnlyList<Parameter> OrderedParameters => _ordered;
+    public Parameter Weights => _weights;
 
     /// <summary>The value of each entry of the fixed boundary vectors l and r (1/√χ).</summary>
     public double BoundaryValue => _boundaryValue;
 
-    /// <summary>Site tensors A (see class remarks), shape [N-1, 2, χ, χ].</summary>
-    public Parameter Sites => _sites;
+    /// <summary>View of the site tensors A (see class remarks), shape [N-1, 2, χ, χ] (dispose the view when done).</summary>
+    public Tensor Sites => _weights.narrow(0, 0, _sitesLength).view(InputSize - 1, 2, BondDimension, BondDimension);
 
-    /// <summary>Middle tensor B, shape [2, d, χ, χ].</summary>
-    public Parameter Middle => _middle;
+    /// <summary>View of the middle tensor B, shape [2, d, χ, χ] (dispose the view when done).</summary>
+    public Tensor Middle => _weights.narrow(0, _sitesLength, 2 * OutputSize * BondDimension * BondDimension).view(2, OutputSize, BondDimension, BondDimension);
 
     /// <summary>Parameter count for these sizes, without building the compressor.</summary>
     public static int CountParameters(int inputSize, int bondDimension, int outputSize)
@@ -122,7 +119,8 @@ public sealed class MpsCompressor : nn.Module<Tensor, Tensor>, IModelStage
             ? torch.stack([(input * (Math.PI / 2)).cos(), (input * (Math.PI / 2)).sin()], dim: -1)
             : torch.stack([torch.ones_like(input), input], dim: -1);                     // [B, N, 2]
         Tensor phiT = phi.permute(1, 0, 2);                                                // [N, B, 2]
-        Tensor flatSites = _sites.reshape(n - 1, 2, chi2);
+        Tensor flatSites = _weights.narrow(0, 0, _sitesLength).view(n - 1, 2, chi2);
+        Tensor middle = _weights.narrow(0, _sitesLength, 2 * OutputSize * chi2);
         int leftCount = m, rightCount = n - 1 - m, depth = Math.Max(leftCount, rightCount);
 
         Tensor left, right;
@@ -159,7 +157,7 @@ public sealed class MpsCompressor : nn.Module<Tensor, Tensor>, IModelStage
         }
         int s = 2 * OutputSize;
         // C[b, s] = Σ_ij L[b,i] B[s,i,j] R[b,j]
-        Tensor lb = left.matmul(_middle.reshape(s, chi, chi).permute(1, 0, 2).reshape(chi, s * chi)).reshape(batch, s, chi);
+        Tensor lb = left.matmul(middle.view(s, chi, chi).permute(1, 0, 2).reshape(chi, s * chi)).reshape(batch, s, chi);
         Tensor c = lb.bmm(right.reshape(batch, chi, 1)).reshape(batch, s);
         c = c / c.square().sum(1, keepdim: true).sqrt();
         Tensor phiMid = phi.select(1, m).reshape(batch, 2, 1);

@@ -26,35 +26,6 @@ internal static class TensorMemory
         return new Span<double>((void*)THSTensor_data(t.Handle), (int)n);
     }
 
-    /// <summary>Copies all listed parameters, in order and row-major, into <paramref name="flat"/>.</summary>
-    public static void Gather(IReadOnlyList<TorchSharp.Modules.Parameter> parameters, Span<double> flat)
-    {
-        int o = 0;
-        foreach (var p in parameters)
-        {
-            var s = AsSpan(p);
-            s.CopyTo(flat.Slice(o, s.Length));
-            o += s.Length;
-        }
-        if (o != flat.Length) throw new ArgumentException($"flat vector has {flat.Length} entries, the parameters have {o}", nameof(flat));
-    }
-
-    /// <summary>Overwrites the listed parameters, in order and row-major, from <paramref name="flat"/>.</summary>
-    public static void Scatter(IReadOnlyList<TorchSharp.Modules.Parameter> parameters, ReadOnlySpan<double> flat)
-    {
-        int total = 0;
-        foreach (var p in parameters) total += (int)p.numel();
-        if (total != flat.Length) throw new ArgumentException($"flat vector has {flat.Length} entries, the parameters have {total}", nameof(flat));
-        int o = 0;
-        using var _ = torch.no_grad();
-        foreach (var p in parameters)
-        {
-            var s = AsSpan(p);
-            flat.Slice(o, s.Length).CopyTo(s);
-            o += s.Length;
-        }
-    }
-
     /// <summary>A float64 parameter of the given shape filled from <paramref name="values"/>.</summary>
     public static TorchSharp.Modules.Parameter NewParameter(double[] values, params long[] shape)
     {

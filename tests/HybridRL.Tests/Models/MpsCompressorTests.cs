@@ -43,8 +43,7 @@ public class MpsCompressorTests
         using var input = tensor(x, [batch, n], dtype: float64);
         using var y = mps.Forward(input);
         var yt = HybridRLTestAccess.Flat(y);
-        var flat = new double[mps.ParameterCount];
-        TensorMemory.Gather(mps.OrderedParameters, flat);
+        var flat = HybridRLTestAccess.Flat(mps.Weights);
         var row = new double[d];
         var scratch = new double[mps.ScratchSize];
         for (int b = 0; b < batch; b++)
@@ -79,8 +78,7 @@ public class MpsCompressorTests
         using var input = tensor(x, [batch, 400], dtype: float64);
         using var y = mps.Forward(input);
         var yt = HybridRLTestAccess.Flat(y);
-        var flat = new double[mps.ParameterCount];
-        TensorMemory.Gather(mps.OrderedParameters, flat);
+        var flat = HybridRLTestAccess.Flat(mps.Weights);
         var row = new double[4];
         var scratch = new double[mps.ScratchSize];
         for (int b = 0; b < batch; b++)
@@ -105,12 +103,10 @@ public class MpsCompressorTests
         using var w = tensor(weights, [batch, 2], dtype: float64);
         using var input = tensor(x, [batch, 7], dtype: float64).requires_grad_(true);
         using (var loss = (mps.Forward(input) * w).sum()) loss.backward();
-        var gSites = HybridRLTestAccess.Flat(mps.Sites.grad!);
-        var gMiddle = HybridRLTestAccess.Flat(mps.Middle.grad!);
+        var gAll = HybridRLTestAccess.Flat(mps.Weights.grad!);
         var gInput = HybridRLTestAccess.Flat(input.grad!);
 
-        var flat = new double[mps.ParameterCount];
-        TensorMemory.Gather(mps.OrderedParameters, flat);
+        var flat = HybridRLTestAccess.Flat(mps.Weights);
         var scratch = new double[mps.ScratchSize];
         var row = new double[2];
         double Loss(double[] p, double[] xx)
@@ -132,7 +128,7 @@ public class MpsCompressorTests
             var plus = (double[])flat.Clone(); plus[j] += h;
             var minus = (double[])flat.Clone(); minus[j] -= h;
             double fd = (Loss(plus, x) - Loss(minus, x)) / (2 * h);
-            double analytic = j < gSites.Length ? gSites[j] : gMiddle[j - gSites.Length];
+            double analytic = gAll[j];
             Assert.True(Math.Abs(fd - analytic) <= 1e-7 * (1 + Math.Abs(fd)), $"param {j}: fd {fd}, autograd {analytic}");
         }
         for (int j = 0; j < x.Length; j++)
