@@ -30,6 +30,19 @@ public sealed class RandomStream
 
     private RandomStream() { }
 
+    /// <summary>Re-seeds this stream in place, exactly as <c>new RandomStream(seed)</c> would (no allocation).</summary>
+    public void Reseed(ulong seed)
+    {
+        ulong x = seed;
+        _s0 = SplitMix64(ref x);
+        _s1 = SplitMix64(ref x);
+        _s2 = SplitMix64(ref x);
+        _s3 = SplitMix64(ref x);
+        if ((_s0 | _s1 | _s2 | _s3) == 0) _s0 = 1;
+        _hasSpare = false;
+        _spare = 0;
+    }
+
     /// <summary>A stream whose seed is a stable hash of this stream's seed material and a name.</summary>
     public static RandomStream FromRoot(ulong rootSeed, string name) => new(Mix(rootSeed, name));
 

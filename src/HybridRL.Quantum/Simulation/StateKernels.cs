@@ -1,0 +1,382 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.Intrinsics;
+
+namespace HybridRL.Quantum.Simulation;
+
+/// <summary>
+/// In-place gate kernels on a state stored as separate real and imaginary arrays of length 2^bits
+/// (bit q of an index is qubit q). Single-qubit kernels touch each amplitude once; diagonal kernels
+/// touch only the amplitudes they change. Work is split over threads only for large registers, with
+/// each amplitude computed by the same arithmetic whatever the split, so results do not depend on
+/// the thread count.
+/// </summary>
+internal static unsafe class StateKernels
+{
+    /// <summary>Registers of at least this many bits are split over threads (when more than one is allowed).</summary>
+    public const int ParallelBits = 14;
+
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static long InsertZero(long k, int q) => ((k >> q) << (q + 1)) | (k & ((1L << q) - 1));
+
+    private static int Parts(int bits, int threads) => threads > 1 && bits >= ParallelBits ? threads : 1;
+
+    /// <summary>Runs body over [0, count) in <paramref name="parts"/> contiguous, fixed pieces.</summary>
+    private static void Split(long count, int parts, Action<long, long> body)
+    {
+        if (parts <= 1) { body(0, count); return; }
+        Parallel.For(0, parts, new ParallelOptions { MaxDegreeOfParallelism = parts }, p =>
+        {
+            long a = count * p / parts, b = count * (p + 1) / parts;
+            body(a, b);
+        });
+    }
+
+    // ---------------- general single-qubit gate ----------------
+
+    public static void Apply1(double[] re, double[] im, int bits, int q, in Mat2 m, int threads = 1)
+    {
+        long pairs = 1L << (bits - 1);
+        int parts = Parts(bits, threads);
+        if (parts == 1) { fixed (double* r = re, i = im) Apply1Range(r, i, q, m, 0, pairs); return; }
+        var mm = m;
+        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) Apply1Range(r, i, q, mm, a, b); });
+    }
+
+    private static void Apply1Range(double* re, double* im, int q, in Mat2 m, long k0, long k1)
+    {
+        long stride = 1L << q;
+        double ar = m.Ar, ai = m.Ai, br = m.Br, bi = m.Bi, cr = m.Cr, ci = m.Ci, dr = m.Dr, di = m.Di;
+        if (stride < 4 || !Vector256.IsHardwareAccelerated)
+        {
+            for (long k = k0; k < k1; k++)
+            {
+                long i0 = InsertZero(k, q), i1 = i0 | stride;
+                double x0r = re[i0], x0i = im[i0], x1r = re[i1], x1i = im[i1];
+                re[i0] = ar * x0r - ai * x0i + br * x1r - bi * x1i;
+                im[i0] = ar * x0i + ai * x0r + br * x1i + bi * x1r;
+                re[i1] = cr * x0r - ci * x0i + dr * x1r - di * x1i;
+                im[i1] = cr * x0i + ci * x0r + dr * x1i + di * x1r;
+            }
+            return;
+        }
+        var vAr = Vector256.Create(ar); var vAi = Vector256.Create(ai);
+        var vBr = Vector256.Create(br); var vBi = Vector256.Create(bi);
+        var vCr = Vector256.Create(cr); var vCi = Vector256.Create(ci);
+        var vDr = Vector256.Create(dr); var vDi = Vector256.Create(di);
+        long kk = k0;
+        while (kk < k1)
+        {
+            long low = kk & (stride - 1);
+            long run = Math.Min(stride - low, k1 - kk);
+            long i0 = InsertZero(kk, q);
+            double* r0 = re + i0, m0 = im + i0, r1 = r0 + stride, m1 = m0 + stride;
+            long j = 0;
+            for (; j + 4 <= run; j += 4)
+            {
+                var x0r = Vector256.Load(r0 + j); var x0i = Vector256.Load(m0 + j);
+                var x1r = Vector256.Load(r1 + j); var x1i = Vector256.Load(m1 + j);
+                (vAr * x0r - vAi * x0i + vBr * x1r - vBi * x1i).Store(r0 + j);
+                (vAr * x0i + vAi * x0r + vBr * x1i + vBi * x1r).Store(m0 + j);
+                (vCr * x0r - vCi * x0i + vDr * x1r - vDi * x1i).Store(r1 + j);
+                (vCr * x0i + vCi * x0r + vDr * x1i + vDi * x1r).Store(m1 + j);
+            }
+            for (; j < run; j++)
+            {
+                double x0r = r0[j], x0i = m0[j], x1r = r1[j], x1i = m1[j];
+                r0[j] = ar * x0r - ai * x0i + br * x1r - bi * x1i;
+                m0[j] = ar * x0i + ai * x0r + br * x1i + bi * x1r;
+                r1[j] = cr * x0r - ci * x0i + dr * x1r - di * x1i;
+                m1[j] = cr * x0i + ci * x0r + dr * x1i + di * x1r;
+            }
+            kk += run;
+        }
+    }
+
+    // ---------------- diagonal single-qubit gate ----------------
+
+    /// <summary>Multiplies amplitudes with qubit q = 0 by d0 and with q = 1 by d1; skips the half whose factor is exactly 1.</summary>
+    public static void ApplyDiag1(double[] re, double[] im, int bits, int q, double d0r, double d0i, double d1r, double d1i, int threads = 1)
+    {
+        bool skip0 = d0r == 1 && d0i == 0, skip1 = d1r == 1 && d1i == 0;
+        if (skip0 && skip1) return;
+        long pairs = 1L << (bits - 1);
+        int parts = Parts(bits, threads);
+        if (parts == 1) { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, 0, pairs); return; }
+        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, a, b); });
+    }
+
+    private static void DiagRange(double* re, double* im, int q, double d0r, double d0i, double d1r, double d1i, bool skip0, bool skip1, long k0, long k1)
+    {
+        long stride = 1L << q;
+        long kk = k0;
+        while (kk < k1)
+        {
+            long low = kk & (stride - 1);
+            long run = Math.Min(stride - low, k1 - kk);
+            long i0 = InsertZero(kk, q);
+            if (!skip0) ScaleRun(re + i0, im + i0, run, d0r, d0i);
+            if (!skip1) ScaleRun(re + i0 + stride, im + i0 + stride, run, d1r, d1i);
+            kk += run;
+        }
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void ScaleRun(double* r, double* m, long n, double cr, double ci)
+    {
+        long j = 0;
+        if (Vector256.IsHardwareAccelerated && n >= 4)
+        {
+            var vr = Vector256.Create(cr); var vi = Vector256.Create(ci);
+            for (; j + 4 <= n; j += 4)
+            {
+                var xr = Vector256.Load(r + j); var xi = Vector256.Load(m + j);
+                (vr * xr - vi * xi).Store(r + j);
+                (vr * xi + vi * xr).Store(m + j);
+            }
+        }
+        for (; j < n; j++)
+        {
+            double xr = r[j], xi = m[j];
+            r[j] = cr * xr - ci * xi;
+            m[j] = cr * xi + ci * xr;
+        }
+    }
+
+    // ---------------- two-qubit gates ----------------
+
+    /// <summary>Applies m to the target when the control qubit is 1 (CNOT, controlled rotations).</summary>
+    public static void ApplyControlled1(double[] re, double[] im, int bits, int control, int target, in Mat2 m, int threads = 1)
+    {
+        long quads = 1L << (bits - 2);
+        int parts = Parts(bits, threads);
+        if (parts == 1) { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, m, 0, quads); return; }
+        var mm = m;
+        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, mm, a, b); });
+    }
+
+    private static void ControlledRange(double* re, double* im, int c, int t, in Mat2 m, long k0, long k1)
+    {
+        int lo = Math.Min(c, t), hi = Math.Max(c, t);
+        long cb = 1L << c, tb = 1L << t;
+        double ar = m.Ar, ai = m.Ai, br = m.Br, bi = m.Bi, cr = m.Cr, ci = m.Ci, dr = m.Dr, di = m.Di;
+        for (long k = k0; k < k1; k++)
+        {
+            long i0 = InsertZero(InsertZero(k, lo), hi) | cb, i1 = i0 | tb;
+            double x0r = re[i0], x0i = im[i0], x1r = re[i1], x1i = im[i1];
+            re[i0] = ar * x0r - ai * x0i + br * x1r - bi * x1i;
+            im[i0] = ar * x0i + ai * x0r + br * x1i + bi * x1r;
+            re[i1] = cr * x0r - ci * x0i + dr * x1r - di * x1i;
+            im[i1] = cr * x0i + ci * x0r + dr * x1i + di * x1r;
+        }
+    }
+
+    public static void ApplyCnot(double[] re, double[] im, int bits, int control, int target, int threads = 1)
+    {
+        long quads = 1L << (bits - 2);
+        int parts = Parts(bits, threads);
+        if (parts == 1) { fixed (double* r = re, i = im) CnotRange(r, i, control, target, 0, quads); return; }
+        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) CnotRange(r, i, control, target, a, b); });
+    }
+
+    private static void CnotRange(double* re, double* im, int c, int t, long k0, long k1)
+    {
+        int lo = Math.Min(c, t), hi = Math.Max(c, t);
+        long cb = 1L << c, tb = 1L << t;
+        for (long k = k0; k < k1; k++)
+        {
+            long i0 = InsertZero(InsertZero(k, lo), hi) | cb, i1 = i0 | tb;
+            (re[i0], re[i1]) = (re[i1], re[i0]);
+            (im[i0], im[i1]) = (im[i1], im[i0]);
+        }
+    }
+
+    public static void ApplyCz(double[] re, double[] im, int bits, int a, int b, int threads = 1)
+    {
+        long quads = 1L << (bits - 2);
+        int parts = Parts(bits, threads);
+        if (parts == 1) { fixed (double* r = re, i = im) CzRange(r, i, a, b, 0, quads); return; }
+        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) CzRange(r, i, a, b, x, y); });
+    }
+
+    private static void CzRange(double* re, double* im, int a, int b, long k0, long k1)
+    {
+        int lo = Math.Min(a, b), hi = Math.Max(a, b);
+        long both = (1L << a) | (1L << b);
+        for (long k = k0; k < k1; k++)
+        {
+            long i = InsertZero(InsertZero(k, lo), hi) | both;
+            re[i] = -re[i];
+            im[i] = -im[i];
+        }
+    }
+
+    public static void ApplySwap(double[] re, double[] im, int bits, int a, int b, int threads = 1)
+    {
+        long quads = 1L << (bits - 2);
+        int parts = Parts(bits, threads);
+        if (parts == 1) { fixed (double* r = re, i = im) SwapRange(r, i, a, b, 0, quads); return; }
+        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) SwapRange(r, i, a, b, x, y); });
+    }
+
+    private static void SwapRange(double* re, double* im, int a, int b, long k0, long k1)
+    {
+        int lo = Math.Min(a, b), hi = Math.Max(a, b);
+        long ab = 1L << a, bb = 1L << b;
+        for (long k = k0; k < k1; k++)
+        {
+            long bas = InsertZero(InsertZero(k, lo), hi);
+            long i0 = bas | ab, i1 = bas | bb;
+            (re[i0], re[i1]) = (re[i1], re[i0]);
+            (im[i0], im[i1]) = (im[i1], im[i0]);
+        }
+    }
+
+    // ---------------- dense k-bit operator (noise superoperators) ----------------
+
+    /// <summary>
+    /// Applies a dense 2^k × 2^k complex matrix (row-major, separate re/im) to the listed bits
+    /// (bits[0] is the least significant bit of the local index). Used for noise superoperators.
+    /// </summary>
+    public static void ApplyDense(double[] re, double[] im, int bits, ReadOnlySpan<int> targets, ReadOnlySpan<double> mre, ReadOnlySpan<double> mim, Span<double> scratch)
+    {
+        int k = targets.Length, d = 1 << k;
+        Span<long> offs = stackalloc long[16];
+        Span<int> sorted = stackalloc int[4];
+        targets.CopyTo(sorted);
+        sorted[..k].Sort();
+        for (int l = 0; l < d; l++)
+        {
+            long o = 0;
+            for (int b = 0; b < k; b++) if (((l >> b) & 1) != 0) o |= 1L << targets[b];
+            offs[l] = o;
+        }
+        var xr = scratch[..d]; var xi = scratch.Slice(d, d);
+        long bases = 1L << (bits - k);
+        for (long kk = 0; kk < bases; kk++)
+        {
+            long bas = kk;
+            for (int b = 0; b < k; b++) bas = InsertZero(bas, sorted[b]);
+            for (int l = 0; l < d; l++) { xr[l] = re[bas + offs[l]]; xi[l] = im[bas + offs[l]]; }
+            for (int r = 0; r < d; r++)
+            {
+                double sr = 0, si = 0;
+                int row = r * d;
+                for (int c = 0; c < d; c++)
+                {
+                    double a = mre[row + c], b = mim[row + c];
+                    if (a == 0 && b == 0) continue;
+                    sr += a * xr[c] - b * xi[c];
+                    si += a * xi[c] + b * xr[c];
+                }
+                re[bas + offs[r]] = sr;
+                im[bas + offs[r]] = si;
+            }
+        }
+    }
+
+    // ---------------- Pauli strings ----------------
+
+    /// <summary>i^{nY}: the phase of P = i^{nY} X^x Z^z for a Pauli string with nY factors Y.</summary>
+    public static (double re, double im) YPhase(int yCount) => (yCount & 3) switch
+    {
+        0 => (1, 0), 1 => (0, 1), 2 => (-1, 0), _ => (0, -1),
+    };
+
+    /// <summary>
+    /// ⟨a|P|b⟩ for P = i^{nY} X^xMask Z^zMask, summed in a fixed order
+    /// (P|j⟩ = i^{nY} (−1)^{|j∧z|} |j⊕x⟩).
+    /// </summary>
+    public static (double re, double im) PauliInner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, ulong xMask, ulong zMask)
+    {
+        long n = bRe.Length;
+        double sr = 0, si = 0;
+        long x = (long)xMask, z = (long)zMask;
+        for (long j = 0; j < n; j++)
+        {
+            long t = j ^ x;
+            double sgn = (System.Numerics.BitOperations.PopCount((ulong)(j & z)) & 1) == 0 ? 1.0 : -1.0;
+            // conj(a_t) * b_j
+            double pr = aRe[(int)t] * bRe[(int)j] + aIm[(int)t] * bIm[(int)j];
+            double pi = aRe[(int)t] * bIm[(int)j] - aIm[(int)t] * bRe[(int)j];
+            sr += sgn * pr;
+            si += sgn * pi;
+        }
+        var (yr, yi) = YPhase(System.Numerics.BitOperations.PopCount(xMask & zMask));
+        return (yr * sr - yi * si, yr * si + yi * sr);
+    }
+
+    /// <summary>Σ_j |ψ_j|² (−1)^{|j∧z|}: expectation of a Z string.</summary>
+    public static double ZExpectation(ReadOnlySpan<double> re, ReadOnlySpan<double> im, ulong zMask)
+    {
+        double s = 0;
+        long z = (long)zMask;
+        for (int j = 0; j < re.Length; j++)
+        {
+            double p = re[j] * re[j] + im[j] * im[j];
+            s += (System.Numerics.BitOperations.PopCount((ulong)(j & z)) & 1) == 0 ? p : -p;
+        }
+        return s;
+    }
+
+    /// <summary>dst += c · P src for P = i^{nY} X^x Z^z (c complex).</summary>
+    public static void AddPauli(Span<double> dRe, Span<double> dIm, ReadOnlySpan<double> sRe, ReadOnlySpan<double> sIm, ulong xMask, ulong zMask, double cr, double ci)
+    {
+        var (yr, yi) = YPhase(System.Numerics.BitOperations.PopCount(xMask & zMask));
+        double fr = cr * yr - ci * yi, fi = cr * yi + ci * yr;
+        long x = (long)xMask, z = (long)zMask;
+        for (int j = 0; j < sRe.Length; j++)
+        {
+            int t = (int)(j ^ x);
+            double sgn = (System.Numerics.BitOperations.PopCount((ulong)(j & z)) & 1) == 0 ? 1.0 : -1.0;
+            double vr = sgn * sRe[j], vi = sgn * sIm[j];
+            dRe[t] += fr * vr - fi * vi;
+            dIm[t] += fr * vi + fi * vr;
+        }
+    }
+
+    /// <summary>
+    /// ⟨a| (Π_control ⊗ P_q) |b⟩ for a single-qubit Pauli P ∈ {X, Y, Z} on qubit q, restricted to indices with
+    /// all bits of <paramref name="controlMask"/> set (0 for no control).
+    /// </summary>
+    public static (double re, double im) Pauli1Inner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, int q, char pauli, long controlMask)
+    {
+        double sr = 0, si = 0;
+        long qb = 1L << q;
+        int n = bRe.Length;
+        for (int j = 0; j < n; j++)
+        {
+            if ((j & controlMask) != controlMask) continue;
+            // (P b)_j
+            double vr, vi;
+            bool one = (j & qb) != 0;
+            switch (pauli)
+            {
+                case 'X': { int s = (int)(j ^ qb); vr = bRe[s]; vi = bIm[s]; break; }
+                case 'Y':
+                {
+                    int s = (int)(j ^ qb);
+                    // Y|0> = i|1>, Y|1> = -i|0>: (Yb)_j = i b_{j^q} if bit j is 1, -i b_{j^q} if 0.
+                    if (one) { vr = -bIm[s]; vi = bRe[s]; } else { vr = bIm[s]; vi = -bRe[s]; }
+                    break;
+                }
+                default: vr = one ? -bRe[j] : bRe[j]; vi = one ? -bIm[j] : bIm[j]; break;
+            }
+            sr += aRe[j] * vr + aIm[j] * vi;
+            si += aRe[j] * vi - aIm[j] * vr;
+        }
+        return (sr, si);
+    }
+
+    /// <summary>⟨a| Π_{mask all set} |b⟩ (projector onto indices where every bit of mask is 1).</summary>
+    public static (double re, double im) ProjectorInner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, long mask)
+    {
+        double sr = 0, si = 0;
+        for (int j = 0; j < bRe.Length; j++)
+        {
+            if ((j & mask) != mask) continue;
+            sr += aRe[j] * bRe[j] + aIm[j] * bIm[j];
+            si += aRe[j] * bIm[j] - aIm[j] * bRe[j];
+        }
+        return (sr, si);
+    }
+}
