@@ -1,3 +1,4 @@
+using HybridRL.Tests.Support;
 using HybridRL.Checkpoints;
 
 namespace HybridRL.Tests.Checkpoints;

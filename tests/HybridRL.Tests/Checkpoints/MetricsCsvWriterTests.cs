@@ -1,3 +1,4 @@
+using HybridRL.Tests.Support;
 using HybridRL.Training;
 using HybridRL.Experiments.Runs;
 

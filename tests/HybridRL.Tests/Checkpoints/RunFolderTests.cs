@@ -1,3 +1,4 @@
+using HybridRL.Tests.Support;
 using HybridRL.Checkpoints;
 using HybridRL.Experiments.Runs;
 

@@ -1,3 +1,4 @@
+using HybridRL.Tests.Support;
 using System.Text.Json;
 using HybridRL.Experiments.Runs;
 

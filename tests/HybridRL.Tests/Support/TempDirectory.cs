@@ -1,7 +1,7 @@
-namespace HybridRL.Tests.Checkpoints;
+namespace HybridRL.Tests.Support;
 
-/// <summary>A unique scratch directory deleted on dispose.</summary>
-internal sealed class TempDirectory : IDisposable
+/// <summary>A unique scratch directory under the system temp folder, deleted on dispose.</summary>
+public sealed class TempDirectory : IDisposable
 {
     public TempDirectory()
     {
