@@ -31,6 +31,7 @@ public sealed class DeepQTrainer : ITrainer
     private readonly double[] _obs, _next, _q;
     private readonly double[] _bStates, _bNext, _bRewards, _bTargets, _bNextTarget, _bNextOnline;
     private readonly int[] _bActions;
+    private readonly long[] _bActionIndex;
     private readonly bool[] _bTerminal;
     private readonly double[] _flatOnline, _flatTarget;
 
@@ -69,6 +70,7 @@ public sealed class DeepQTrainer : ITrainer
         _bNextTarget = new double[b * a];
         _bNextOnline = new double[b * a];
         _bActions = new int[b];
+        _bActionIndex = new long[b];
         _bTerminal = new bool[b];
         _flatOnline = new double[_online.ParameterCount];
         _flatTarget = new double[_online.ParameterCount];
@@ -165,7 +167,8 @@ public sealed class DeepQTrainer : ITrainer
         {
             _optimizer.zero_grad();
             var states = tensor(_bStates, [b, n], dtype: float64);
-            var actions = tensor(_bActions.Select(x => (long)x).ToArray(), [b, 1], dtype: int64);
+            for (int i = 0; i < b; i++) _bActionIndex[i] = _bActions[i];
+            var actions = tensor(_bActionIndex, [b, 1], dtype: int64);
             var targets = tensor(_bTargets, [b], dtype: float64);
             var q = _online.Forward(states).gather(1, actions).squeeze(1);
             var loss = _s.Loss == TdLoss.Huber
