@@ -1,4 +1,5 @@
 using System.CommandLine;
+using HybridRL.Checkpoints;
 using HybridRL.Environments;
 using HybridRL.Experiments;
 using HybridRL.Experiments.Config;
@@ -24,7 +25,8 @@ public static class CommandRunner
         }
         try
         {
-            return result.Invoke();
+            // Exceptions reach the handlers below (the library's default handler would print a stack trace and return 1).
+            return result.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false });
         }
         catch (Exception ex) when (IsInvalidInput(ex))
         {
@@ -32,6 +34,11 @@ public static class CommandRunner
             return ExitCodes.InvalidInput;
         }
         catch (TorchUnavailableException ex)
+        {
+            Console.Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.Failure;
+        }
+        catch (Exception ex) when (ex is CheckpointCorruptException or InvalidDataException)
         {
             Console.Error.WriteLine($"error: {ex.Message}");
             return ExitCodes.Failure;

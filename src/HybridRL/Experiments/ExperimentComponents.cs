@@ -29,6 +29,7 @@ public sealed class ExperimentComponents : IDisposable
         {
             ObservationSize = probe.ObservationSize;
             ActionCount = probe.ActionCount;
+            ObservationIsBinary = probe.ObservationIsBinary;
         }
         ModelSettings = MapModel(spec.Model);
         Budget = new TrainingBudget(spec.Experiment.Budget.EnvSteps, spec.Experiment.Budget.Episodes, spec.Experiment.Budget.Generations,
@@ -39,6 +40,8 @@ public sealed class ExperimentComponents : IDisposable
     public Mdl.ModelSettings ModelSettings { get; }
     public int ObservationSize { get; }
     public int ActionCount { get; }
+    /// <summary>Whether observations are 0/1 only (the replay buffer then stores them as bytes).</summary>
+    public bool ObservationIsBinary { get; }
     public TrainingBudget Budget { get; }
     public ITrainer Trainer { get; private set; } = null!;
     public IReadOnlyDictionary<string, int> ParameterCounts { get; private set; } = new Dictionary<string, int>();
@@ -51,6 +54,9 @@ public sealed class ExperimentComponents : IDisposable
         c.ParameterCounts = model.ParameterCounts;
         return c;
     }
+
+    /// <summary>The environment and model settings without a trainer (for inspection and evaluation: no replay buffer is allocated).</summary>
+    public static ExperimentComponents Describe(ExperimentSpec spec) => new(spec);
 
     /// <summary>Everything needed to train.</summary>
     public static ExperimentComponents Build(ExperimentSpec spec)

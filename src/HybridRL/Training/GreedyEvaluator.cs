@@ -33,20 +33,41 @@ public sealed class GreedyEvaluator
     {
         steps = 0;
         double total = 0;
-        foreach (var seed in _seeds)
+        for (int k = 0; k < _seeds.Length; k++)
         {
-            _env.Reset(seed, _obs);
-            double ret = 0;
-            while (true)
-            {
-                model.ForwardNoGrad(_obs, 1, _q);
-                var r = _env.Step(BellmanTargets.ArgMax(_q), _obs);
-                steps++;
-                ret += r.Reward;
-                if (r.Terminal || r.Truncated) break;
-            }
-            total += ret;
+            total += RunEpisode(model, k, out long n);
+            steps += n;
         }
         return total / _seeds.Length;
+    }
+
+    /// <summary>Undiscounted return of each episode (in seed order) into <paramref name="returns"/> (length <see cref="Episodes"/>); returns their mean.</summary>
+    public double Evaluate(IAgentModel model, Span<double> returns, out long steps)
+    {
+        if (returns.Length != _seeds.Length) throw new ArgumentException($"returns has {returns.Length} slots for {_seeds.Length} episodes", nameof(returns));
+        steps = 0;
+        double total = 0;
+        for (int k = 0; k < _seeds.Length; k++)
+        {
+            returns[k] = RunEpisode(model, k, out long n);
+            total += returns[k];
+            steps += n;
+        }
+        return total / _seeds.Length;
+    }
+
+    private double RunEpisode(IAgentModel model, int k, out long steps)
+    {
+        steps = 0;
+        _env.Reset(_seeds[k], _obs);
+        double ret = 0;
+        while (true)
+        {
+            model.ForwardNoGrad(_obs, 1, _q);
+            var r = _env.Step(BellmanTargets.ArgMax(_q), _obs);
+            steps++;
+            ret += r.Reward;
+            if (r.Terminal || r.Truncated) return ret;
+        }
     }
 }
