@@ -223,3 +223,74 @@ public class HybridModelTests
         Assert.True(model.HardwareExecutionsPerGradientRow > 0);
     }
 }
+
+public class HybridModelModesTests
+{
+    [Fact]
+    public void ActingPathAddsNoAllocationToTheEngines()
+    {
+        TorchRuntime.EnsureLoaded();
+        // Compressor rows allocate nothing.
+        var mps = new MpsCompressor(12, 4, 3, SiteFeatureMap.Trigonometric, new RandomStream(1));
+        var w = HybridRLTestAccess.Flat(mps.Weights);
+        var row = new double[3];
+        var scratch = new double[mps.ScratchSize];
+        var x = Enumerable.Range(0, 12).Select(i => 0.1 * i).ToArray();
+        mps.ForwardRow(w, x, row, scratch);
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 10; i++) mps.ForwardRow(w, x, row, scratch);
+        Assert.Equal(0, GC.GetAllocatedBytesForCurrentThread() - before);
+
+        // The whole acting path allocates exactly what the engine itself does for the same call (the engine's
+        // own allocation depends on the angles, so compare like with like).
+        var settings = new ModelSettings { Circuit = new CircuitSettings { Qubits = 3 } };
+        using var model = (HybridModel)ModelFactory.Create(settings, 3, 2, 1);
+        var ev = model.QuantumLayer.Evaluator;
+        var obs = new[] { 0.1, -0.2, 0.3, 0.4, 0.5, -0.6, 0.0, 0.2, 0.9, -1.0, 0.3, 0.7 };
+        var output = new double[8];
+        var expectations = new double[4 * ev.OutputCount];
+        var theta = HybridRLTestAccess.Flat(model.QuantumLayer.Weights)[..ev.ParameterCount];
+        for (int i = 0; i < 2; i++)
+        {
+            model.ForwardNoGrad(obs, 4, output);
+            ev.Forward(obs, theta, 4, false, expectations);
+        }
+        before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 10; i++) ev.Forward(obs, theta, 4, false, expectations);
+        long engine = GC.GetAllocatedBytesForCurrentThread() - before;
+        before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 10; i++) model.ForwardNoGrad(obs, 4, output);
+        long total = GC.GetAllocatedBytesForCurrentThread() - before;
+        Assert.True(total <= engine, $"model path allocated {total} bytes over 10 calls, the engine alone {engine}");
+    }
+
+    [Fact]
+    public void ShotModeTrainsThroughParameterShiftAndCountsShots()
+    {
+        TorchRuntime.EnsureLoaded();
+        var settings = new ModelSettings
+        {
+            Circuit = new CircuitSettings { Qubits = 2, Layers = 1 },
+            Simulation = new SimulationSettings { Mode = SimulationMode.Shots, Shots = 200 },
+        };
+        using var model = ModelFactory.Create(settings, 2, 2, 3);
+        using var x = tensor(new[] { 0.1, 0.2, -0.3, 0.4 }, [2, 2], dtype: float64);
+        using (var loss = model.Forward(x).sum()) loss.backward();
+        var grad = model.Parameters().SelectMany(p => HybridRLTestAccess.Flat(p.grad!)).ToArray();
+        Assert.All(grad, g => Assert.True(double.IsFinite(g)));
+        Assert.Contains(grad, g => g != 0);
+        Assert.True(model.Counters!.Shots > 0);
+        // Per-action read-out bias gradient of sum(out) is exactly 1 per row (by definition), whatever the shot noise.
+        Assert.Equal(2.0, grad[^1], 12);
+        Assert.Equal(2.0, grad[^2], 12);
+    }
+
+    [Fact]
+    public void NoiseInExactModeIsRejectedWithTheKeys()
+    {
+        TorchRuntime.EnsureLoaded();
+        var settings = new ModelSettings { Simulation = new SimulationSettings { Depolarizing = 0.01 } };
+        var ex = Assert.Throws<ModelConfigurationException>(() => ModelFactory.Create(settings, 2, 2, 3));
+        Assert.Contains("model.simulation.mode", ex.Message);
+    }
+}
