@@ -25,7 +25,8 @@ public class CircuitDescriptionTests
         Assert.Equal(4, r.VariableAngleCount);
         // Hardware shift evaluations: RY 2 + Rot's two trainable angles 2·2 + CRX 4 = 10 (rule: 2 per Pauli rotation, 4 per controlled).
         Assert.Equal(10, GradientCost.ShiftEvaluationsPerRow(c));
-        Assert.Equal(20, GradientCost.HardwareExecutionsPerGradient(c, [Observable.ZOn(0), Observable.Parse("X1")]));
+        Assert.Equal(10, GradientCost.HardwareExecutionsPerGradient(c, [Observable.ZOn(0), Observable.Parse("X1")])); // Z0 and X1 share one setting
+        Assert.Equal(20, GradientCost.HardwareExecutionsPerGradient(c, [Observable.ZOn(0), Observable.Parse("X0")])); // Z0 and X0 need two
     }
 
     [Fact]
