@@ -38,6 +38,8 @@ public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel
         var cs = settings.Compressor;
         int capacity = ModelCircuit.Capacity(settings.Circuit.Encoding, settings.Circuit.Qubits);
         int features = observationSize;
+        if (cs.Kind != CompressorKind.None && settings.Circuit.Encoding == EncodingKind.Basis)
+            throw new ModelConfigurationException("basis encoding reads an integer state index; a compressor cannot produce one", "model.compressor.kind", "model.circuit.encoding");
         if (cs.Kind != CompressorKind.None)
         {
             features = cs.OutputSize == 0 ? capacity : cs.OutputSize;

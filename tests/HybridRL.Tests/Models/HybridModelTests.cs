@@ -294,3 +294,48 @@ public class HybridModelModesTests
         Assert.Contains("model.simulation.mode", ex.Message);
     }
 }
+
+public class HybridModelEncodingTests
+{
+    [Fact]
+    public void BasisEncodingGivesTheZExpectationsOfTheComputationalState()
+    {
+        TorchRuntime.EnsureLoaded();
+        // One layer with all rotation angles set to 0 and no entangler leaves |s⟩ unchanged, so
+        // ⟨Z_q⟩ = (−1)^{bit_q(s)} (Z eigenstates, Nielsen & Chuang §2.1.3); read-out weights start at 1, biases at 0.
+        var settings = new ModelSettings
+        {
+            Circuit = new CircuitSettings { Qubits = 3, Layers = 1, Encoding = EncodingKind.Basis, Entangler = EntanglerPattern.None, Readout = ReadoutKind.PerAction },
+        };
+        using var model = ModelFactory.Create(settings, 1, 3, 1);
+        var flat = new double[model.ParameterCount];
+        model.GetFlat(flat);
+        var circuitCount = model.ParameterCounts["circuit"];
+        for (int i = 0; i < circuitCount; i++) flat[i] = 0.0;
+        model.SetFlat(flat);
+        var output = new double[3];
+        model.ForwardNoGrad([5.0], 1, output); // 5 = 0b101: qubits 0 and 2 are |1⟩
+        Assert.Equal(-1.0, output[0], 12);
+        Assert.Equal(1.0, output[1], 12);
+        Assert.Equal(-1.0, output[2], 12);
+    }
+
+    [Theory]
+    [InlineData(EncodingKind.Amplitude, 8, 3)]
+    [InlineData(EncodingKind.ProductZz, 3, 3)]
+    [InlineData(EncodingKind.DenseAngle, 6, 3)]
+    public void OtherEncodingsBuildAndDifferentiate(EncodingKind encoding, int features, int qubits)
+    {
+        TorchRuntime.EnsureLoaded();
+        var settings = new ModelSettings { Circuit = new CircuitSettings { Qubits = qubits, Layers = 1, Encoding = encoding, Readout = ReadoutKind.Linear } };
+        using var model = ModelFactory.Create(settings, features, 2, 1);
+        var x = Enumerable.Range(0, features).Select(i => 0.2 + 0.1 * i).ToArray();
+        using var input = tensor(x, [1, features], dtype: float64).requires_grad_(true);
+        using (var loss = model.Forward(input).sum()) loss.backward();
+        var g = HybridRLTestAccess.Flat(input.grad!);
+        Assert.Contains(g, v => v != 0);
+        var tooMany = ModelCircuit.Capacity(encoding, qubits) + 1;
+        var ex = Assert.Throws<ModelConfigurationException>(() => ModelFactory.Create(settings, tooMany, 2, 1));
+        Assert.Contains("model.circuit.encoding", ex.Message);
+    }
+}
