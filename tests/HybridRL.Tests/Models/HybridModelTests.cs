@@ -101,6 +101,47 @@ public class HybridModelTests
     }
 
     [Fact]
+    public void QuantumLayerGradientsEqualTheEnginesAdjointChainedWithTheReadout()
+    {
+        TorchRuntime.EnsureLoaded();
+        using var model = (HybridModel)ModelFactory.Create(Settings(CompressorKind.None, ReadoutKind.PerAction, gradient: GradientMethod.Adjoint), 3, 2, 21);
+        var layer = model.QuantumLayer;
+        var ev = layer.Evaluator;
+        const int batch = 5;
+        var x = Uniform(batch * 3, 31);
+        var g = Uniform(batch * 2, 32);
+        using var xt = tensor(x, [batch, 3], dtype: float64).requires_grad_(true);
+        using (var loss = (layer.Forward(xt) * tensor(g, [batch, 2], dtype: float64)).sum()) loss.backward();
+        var gotWeights = HybridRLTestAccess.Flat(layer.Weights.grad!);
+        var gotInputs = HybridRLTestAccess.Flat(xt.grad!);
+
+        var w = HybridRLTestAccess.Flat(layer.Weights);
+        int pc = ev.ParameterCount;
+        var e = new double[batch * 2];
+        ev.Forward(x, w.AsSpan(0, pc), batch, false, e);
+        // Chain rule by hand for out_a = w_a·E_a + b_a: ∂L/∂E_a = g_a·w_a, ∂L/∂w_a = Σ_b g_a·E_a, ∂L/∂b_a = Σ_b g_a.
+        var gE = new double[batch * 2];
+        double[] gw = new double[2], gb = new double[2];
+        for (int b = 0; b < batch; b++)
+            for (int a = 0; a < 2; a++)
+            {
+                gE[b * 2 + a] = g[b * 2 + a] * w[pc + a];
+                gw[a] += g[b * 2 + a] * e[b * 2 + a];
+                gb[a] += g[b * 2 + a];
+            }
+        var gTheta = new double[pc];
+        var gIn = new double[batch * 3];
+        ev.Backward(x, w.AsSpan(0, pc), batch, false, gE, gTheta, gIn); // adjoint method (Jones & Gacon 2020), the engine's own
+        for (int i = 0; i < pc; i++) Assert.Equal(gTheta[i], gotWeights[i], 14);
+        for (int a = 0; a < 2; a++)
+        {
+            Assert.Equal(gw[a], gotWeights[pc + a], 14);
+            Assert.Equal(gb[a], gotWeights[pc + 2 + a], 14);
+        }
+        for (int i = 0; i < gIn.Length; i++) Assert.Equal(gIn[i], gotInputs[i], 14);
+    }
+
+    [Fact]
     public void AdjointAndParameterShiftAgreeThroughTheLayer()
     {
         TorchRuntime.EnsureLoaded();
