@@ -9,5 +9,8 @@ var root = new RootCommand(
 root.Options.Add(GlobalOptions.Verbose);
 root.Options.Add(GlobalOptions.Quiet);
 root.Subcommands.Add(AboutCommand.Create());
+root.Subcommands.Add(TrainCommand.Create());
+root.Subcommands.Add(ResumeCommand.Create());
+root.Subcommands.Add(BenchCommand.Create());
 
 return CommandRunner.Invoke(root, args);

@@ -1,0 +1,31 @@
+using HybridRL.Checkpoints;
+using HybridRL.Native;
+
+namespace HybridRL.Benchmarks;
+
+/// <summary>
+/// The groups `hybridrl bench` runs. Each returns named figures, mostly ratios taken in one run
+/// (these machines are noisy, so absolute times are for the record only). Quick mode shortens
+/// every measurement for smoke tests.
+/// </summary>
+public static class BenchmarkSuite
+{
+    public static IReadOnlyList<string> Groups { get; } = ["simulator", "model", "training"];
+
+    public static IReadOnlyDictionary<string, double> Run(string group, bool quick)
+    {
+        TorchRuntime.EnsureLoaded();
+        return group switch
+        {
+            "training" => Training(quick),
+            _ => throw new ArgumentException($"unknown benchmark group '{group}'; one of: {string.Join(", ", Groups)}", nameof(group)),
+        };
+    }
+
+    private static IReadOnlyDictionary<string, double> Training(bool quick)
+    {
+        var result = new SortedDictionary<string, double>(StringComparer.Ordinal);
+        foreach (var (k, v) in CheckpointBenchmark.Run(quick ? 1 : 5).ToMetrics()) result[k] = v;
+        return result;
+    }
+}
