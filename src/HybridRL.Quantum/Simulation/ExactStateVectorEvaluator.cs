@@ -50,30 +50,38 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
         }
         var prims = C.Primitives;
         var diff = C.SlotDifferentiable;
+        int n = Qubits;
+        bool big = n >= StateKernels.ParallelBits && kt > 1;
         for (int i = prims.Length - 1; i >= 0; i--)
         {
             ref readonly var p = ref prims[i];
+            double t = p.Slot >= 0 ? theta[p.Slot] : 0;
+            if (p.Slot >= 0 && diff[p.Slot] && !big)
+            {
+                // Single fused pass: derivative term, then undo on ψ and λ.
+                var inv = p.Matrix(-t);
+                double g = p.Kind switch
+                {
+                    PrimitiveKind.Phase => AdjointKernels.Step(re, im, lr, li, n, p.Q0, 0, 'P', inv, i > 0),
+                    PrimitiveKind.CRX or PrimitiveKind.CRY or PrimitiveKind.CRZ => AdjointKernels.Step(re, im, lr, li, n, p.Q1, 1L << p.Q0, p.Generator, inv, i > 0),
+                    _ => AdjointKernels.Step(re, im, lr, li, n, p.Q0, 0, p.Generator, inv, i > 0),
+                };
+                gTheta[p.Slot] += g;
+                continue;
+            }
             if (p.Slot >= 0 && diff[p.Slot])
             {
-                double g;
-                switch (p.Kind)
+                double g = p.Kind switch
                 {
-                    case PrimitiveKind.Phase:
-                        g = -2 * StateKernels.ProjectorInner(lr, li, re, im, 1L << p.Q0).im;
-                        break;
-                    case PrimitiveKind.CRX or PrimitiveKind.CRY or PrimitiveKind.CRZ:
-                        g = StateKernels.Pauli1Inner(lr, li, re, im, p.Q1, p.Generator, 1L << p.Q0).im;
-                        break;
-                    default:
-                        g = StateKernels.Pauli1Inner(lr, li, re, im, p.Q0, p.Generator, 0).im;
-                        break;
-                }
+                    PrimitiveKind.Phase => -2 * StateKernels.ProjectorInner(lr, li, re, im, 1L << p.Q0).im,
+                    PrimitiveKind.CRX or PrimitiveKind.CRY or PrimitiveKind.CRZ => StateKernels.Pauli1Inner(lr, li, re, im, p.Q1, p.Generator, 1L << p.Q0).im,
+                    _ => StateKernels.Pauli1Inner(lr, li, re, im, p.Q0, p.Generator, 0).im,
+                };
                 gTheta[p.Slot] += g;
             }
             if (i == 0) break;
-            double t = p.Slot >= 0 ? theta[p.Slot] : 0;
-            StateVectorOps.Apply(re, im, Qubits, p, t, true, kt);
-            StateVectorOps.Apply(lr, li, Qubits, p, t, true, kt);
+            StateVectorOps.Apply(re, im, n, p, t, true, kt);
+            StateVectorOps.Apply(lr, li, n, p, t, true, kt);
         }
     }
 }

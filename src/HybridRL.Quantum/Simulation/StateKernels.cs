@@ -46,6 +46,21 @@ internal static unsafe class StateKernels
     {
         long stride = 1L << q;
         double ar = m.Ar, ai = m.Ai, br = m.Br, bi = m.Bi, cr = m.Cr, ci = m.Ci, dr = m.Dr, di = m.Di;
+        if ((stride < 4 || !Vector256.IsHardwareAccelerated) && k0 == 0 && (k1 & (stride - 1)) == 0)
+        {
+            long end = 2 * k1;
+            for (long bas = 0; bas < end; bas += 2 * stride)
+                for (long i0 = bas; i0 < bas + stride; i0++)
+                {
+                    long i1 = i0 + stride;
+                    double x0r = re[i0], x0i = im[i0], x1r = re[i1], x1i = im[i1];
+                    re[i0] = ar * x0r - ai * x0i + br * x1r - bi * x1i;
+                    im[i0] = ar * x0i + ai * x0r + br * x1i + bi * x1r;
+                    re[i1] = cr * x0r - ci * x0i + dr * x1r - di * x1i;
+                    im[i1] = cr * x0i + ci * x0r + dr * x1i + di * x1r;
+                }
+            return;
+        }
         if (stride < 4 || !Vector256.IsHardwareAccelerated)
         {
             for (long k = k0; k < k1; k++)

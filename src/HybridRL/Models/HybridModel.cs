@@ -18,7 +18,7 @@ namespace HybridRL.Models;
 /// input_scaling, circuit (rotation angles), readout.
 /// </para>
 /// </summary>
-public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel
+public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel, ISimulatedModel
 {
     private readonly IModelStage? _compressor;
     private readonly QuantumLayer _layer;
@@ -38,6 +38,8 @@ public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel
         var cs = settings.Compressor;
         int capacity = ModelCircuit.Capacity(settings.Circuit.Encoding, settings.Circuit.Qubits);
         int features = observationSize;
+        if (cs.Kind != CompressorKind.None && settings.Circuit.Encoding == EncodingKind.Basis)
+            throw new ModelConfigurationException("basis encoding reads an integer state index; a compressor cannot produce one", "model.compressor.kind", "model.circuit.encoding");
         if (cs.Kind != CompressorKind.None)
         {
             features = cs.OutputSize == 0 ? capacity : cs.OutputSize;
@@ -112,6 +114,14 @@ public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel
     public nn.Module? Compressor => (nn.Module?)_compressor;
     public ExecutionCounters? Counters => _layer.Evaluator.Counters;
     public long HardwareExecutionsPerGradientRow => _layer.HardwareExecutionsPerGradientRow;
+
+    public EvaluatorRandomState GetSimulationState() => _layer.Evaluator.GetState();
+    public void SetSimulationState(EvaluatorRandomState state) => _layer.Evaluator.SetState(state);
+    public double NoiseProgress
+    {
+        get => _layer.Evaluator.NoiseProgress;
+        set => _layer.Evaluator.NoiseProgress = value;
+    }
 
     public override Tensor forward(Tensor input) => Forward(input);
 

@@ -1,4 +1,5 @@
 using HybridRL.Quantum.Circuits;
+using HybridRL.Quantum.Encodings;
 using HybridRL.Quantum.Observables;
 
 namespace HybridRL.Models;
@@ -6,7 +7,8 @@ namespace HybridRL.Models;
 /// <summary>
 /// The layered variational circuit of a hybrid model, built from <see cref="CircuitSettings"/>.
 /// <para>
-/// Layer ℓ = 0..L-1: (if ℓ = 0 or re-uploading) the encoding of every input feature, each as a rotation
+/// Basis, amplitude and product encodings are prepared once before the layers (from HybridRL.Quantum.Encodings).
+/// Layer ℓ = 0..L-1: (angle encodings, if ℓ = 0 or re-uploading) the encoding of every input feature, each as a rotation
 /// whose angle is s·squash(x) with s a trainable scale (or the constant 1); then, for each qubit in order,
 /// one trainable rotation per configured axis; then the entangler. Parameters are numbered in the order
 /// they are created: per layer, first the encoding scales (feature order), then the rotations (qubit-major,
@@ -33,7 +35,15 @@ public sealed class ModelCircuit
     public int RotationParameterCount => Circuit.ParameterCount - ScaleParameterCount;
 
     /// <summary>Number of features the encoding can hold on <paramref name="qubits"/> qubits.</summary>
-    public static int Capacity(EncodingKind encoding, int qubits) => encoding == EncodingKind.DenseAngle ? 2 * qubits : qubits;
+    public static int Capacity(EncodingKind encoding, int qubits) => encoding switch
+    {
+        EncodingKind.DenseAngle => 2 * qubits,
+        EncodingKind.Basis => 1,
+        EncodingKind.Amplitude => qubits >= 30 ? int.MaxValue : 1 << qubits,
+        _ => qubits,
+    };
+
+    private static bool IsAngle(EncodingKind e) => e is EncodingKind.AngleX or EncodingKind.AngleY or EncodingKind.DenseAngle;
 
     /// <summary>Builds the circuit for <paramref name="features"/> inputs and <paramref name="actions"/> outputs.</summary>
     public static ModelCircuit Build(CircuitSettings s, int features, int actions)
@@ -47,6 +57,8 @@ public sealed class ModelCircuit
                 $"{features} features do not fit a {s.Encoding} encoding on {s.Qubits} qubits (it holds {capacity}); " +
                 "use a compressor, more qubits or a denser encoding", "model.compressor.kind", "model.circuit.qubits", "model.circuit.encoding");
         if (features < 1) throw new ModelConfigurationException("the circuit needs at least one input feature", "model.compressor.output_size");
+        if (s.Encoding == EncodingKind.Basis && 1L << Math.Min(s.Qubits, 62) < 2)
+            throw new ModelConfigurationException("basis encoding needs at least one qubit", "model.circuit.qubits");
         if (s.Readout == ReadoutKind.PerAction && actions > s.Qubits)
             throw new ModelConfigurationException(
                 $"per_action read-out needs one qubit per action: {actions} actions, {s.Qubits} qubits", "model.circuit.readout", "model.circuit.qubits");
@@ -62,9 +74,15 @@ public sealed class ModelCircuit
             isScale.Add(true);
             return Angle.ScaledInput(f, p, s.InputSquash);
         }
+        switch (s.Encoding)
+        {
+            case EncodingKind.Basis: BasisEncoding.Append(b); break;
+            case EncodingKind.Amplitude: AmplitudeEncoding.Append(b, features); break;
+            case EncodingKind.ProductZz: ProductEncoding.Append(b, features); break;
+        }
         for (int layer = 0; layer < s.Layers; layer++)
         {
-            if (layer == 0 || s.Reupload)
+            if (IsAngle(s.Encoding) && (layer == 0 || s.Reupload))
             {
                 for (int q = 0; q < s.Qubits; q++)
                 {

@@ -18,4 +18,25 @@ public static class ModelFactory
             _ => new HybridModel(settings, observationSize, actionCount, seed),
         };
     }
+
+    /// <summary>
+    /// Hidden sizes for a classical baseline with <paramref name="hiddenLayers"/> equal-width layers whose
+    /// parameter count is as close as possible to <paramref name="targetParameters"/> (e.g. a hybrid model's
+    /// <see cref="IAgentModel.ParameterCount"/>), for comparisons at matched parameter counts.
+    /// </summary>
+    public static int[] MatchedClassicalHidden(int targetParameters, int observationSize, int actionCount, int hiddenLayers = 2)
+    {
+        if (targetParameters < 1) throw new ArgumentOutOfRangeException(nameof(targetParameters), targetParameters, "target must be positive");
+        if (hiddenLayers < 1) throw new ArgumentOutOfRangeException(nameof(hiddenLayers), hiddenLayers, "need at least one hidden layer");
+        int best = 1;
+        long bestGap = long.MaxValue;
+        for (int w = 1; w <= 1 << 16; w++)
+        {
+            long count = DenseNetwork.CountParameters(observationSize, Enumerable.Repeat(w, hiddenLayers).ToArray(), actionCount);
+            long gap = Math.Abs(count - targetParameters);
+            if (gap < bestGap) { bestGap = gap; best = w; }
+            if (count > targetParameters) break;
+        }
+        return Enumerable.Repeat(best, hiddenLayers).ToArray();
+    }
 }

@@ -204,9 +204,7 @@ public sealed class MpsCompressor : nn.Module<Tensor, Tensor>, IModelStage
             for (int a = 0; a < chi; a++)
             {
                 double c0 = v[a] * p0, c1 = v[a] * p1;
-                var r0 = a0.Slice(a * chi, chi);
-                var r1 = a1.Slice(a * chi, chi);
-                for (int b = 0; b < chi; b++) v2[b] += c0 * r0[b] + c1 * r1[b];
+                SpanMath.AddScaledPair(v2, c0, a0.Slice(a * chi, chi), c1, a1.Slice(a * chi, chi));
             }
             Normalise(v2);
             var t = v; v = v2; v2 = t;
@@ -219,11 +217,7 @@ public sealed class MpsCompressor : nn.Module<Tensor, Tensor>, IModelStage
             var a1 = sites.Slice((si * 2 + 1) * chi2, chi2);
             for (int a = 0; a < chi; a++)
             {
-                var r0 = a0.Slice(a * chi, chi);
-                var r1 = a1.Slice(a * chi, chi);
-                double s0 = 0, s1 = 0;
-                for (int b = 0; b < chi; b++) { s0 += r0[b] * w[b]; s1 += r1[b] * w[b]; }
-                w2[a] = p0 * s0 + p1 * s1;
+                w2[a] = p0 * SpanMath.Dot(a0.Slice(a * chi, chi), w) + p1 * SpanMath.Dot(a1.Slice(a * chi, chi), w);
             }
             Normalise(w2);
             var t = w; w = w2; w2 = t;
@@ -235,10 +229,7 @@ public sealed class MpsCompressor : nn.Module<Tensor, Tensor>, IModelStage
             double acc = 0;
             for (int a = 0; a < chi; a++)
             {
-                var row = bm.Slice(a * chi, chi);
-                double rs = 0;
-                for (int b = 0; b < chi; b++) rs += row[b] * w[b];
-                acc += v[a] * rs;
+                acc += v[a] * SpanMath.Dot(bm.Slice(a * chi, chi), w);
             }
             c[s] = acc;
             norm2 += acc * acc;

@@ -9,7 +9,7 @@ using Parameter = TorchSharp.Modules.Parameter;
 namespace HybridRL.Models;
 
 /// <summary>
-/// A TorchSharp module that evaluates a variational circuit (through <see cref="CircuitFunction"/>) and
+/// A TorchSharp module that evaluates a variational circuit (one autograd node, <see cref="QuantumLayerFunction"/>) and
 /// maps the observable expectations to outputs with trainable weights and biases
 /// (Skolik, Jerbi &amp; Dunjko 2022, Quantum 6, 720: trainable input and output scaling).
 /// <para>
@@ -70,17 +70,57 @@ public sealed class QuantumLayer : nn.Module<Tensor, Tensor>
 
     public override Tensor forward(Tensor input) => Forward(input);
 
-    public Tensor Forward(Tensor input)
+    /// <summary>[B, inputs] → [B, outputs] through one autograd node (<see cref="QuantumLayerFunction"/>).</summary>
+    public Tensor Forward(Tensor input) => QuantumLayerFunction.apply(input, _weights, this);
+
+    private double[] _gradBuffer = [];
+
+    /// <summary>Reusable buffer for the gradient with respect to the expectations (grows, never shrinks).</summary>
+    internal Span<double> GradientBuffer(int length)
     {
-        using var scope = torch.NewDisposeScope();
-        var theta = _weights.narrow(0, 0, _circuitCount);
-        var expectations = CircuitFunction.apply(input, theta, Evaluator);
-        var w = _weights.narrow(0, _circuitCount, _readoutWeightCount);
-        var b = _weights.narrow(0, _circuitCount + _readoutWeightCount, OutputCount);
-        var y = Readout == ReadoutKind.PerAction
-            ? expectations * w + b
-            : nn.functional.linear(expectations, w.view(OutputCount, Observables.Count), b);
-        return y.MoveToOuterDisposeScope();
+        if (_gradBuffer.Length < length) _gradBuffer = new double[length];
+        return _gradBuffer.AsSpan(0, length);
+    }
+
+    /// <summary>
+    /// Read-out backward for a batch: writes ∂L/∂(readout weights, biases) into <paramref name="gradReadout"/>
+    /// (same layout as the parameters) and ∂L/∂E into <paramref name="gradExpectations"/>.
+    /// </summary>
+    internal void ReadoutBackward(ReadOnlySpan<double> readout, ReadOnlySpan<double> expectations, ReadOnlySpan<double> gradOutput, int batch,
+        Span<double> gradReadout, Span<double> gradExpectations)
+    {
+        int nObs = Observables.Count, a = OutputCount;
+        var w = readout[.._readoutWeightCount];
+        var gw = gradReadout[.._readoutWeightCount];
+        var gb = gradReadout.Slice(_readoutWeightCount, a);
+        gradReadout.Clear();
+        gradExpectations.Clear();
+        for (int b = 0; b < batch; b++)
+        {
+            var g = gradOutput.Slice(b * a, a);
+            var e = expectations.Slice(b * nObs, nObs);
+            var ge = gradExpectations.Slice(b * nObs, nObs);
+            for (int k = 0; k < a; k++)
+            {
+                double gk = g[k];
+                gb[k] += gk;
+                if (Readout == ReadoutKind.PerAction)
+                {
+                    gw[k] += gk * e[k];
+                    ge[k] = gk * w[k];
+                }
+                else
+                {
+                    var row = w.Slice(k * nObs, nObs);
+                    var grow = gw.Slice(k * nObs, nObs);
+                    for (int j = 0; j < nObs; j++)
+                    {
+                        grow[j] += gk * e[j];
+                        ge[j] += gk * row[j];
+                    }
+                }
+            }
+        }
     }
 
     /// <summary>Expectations → outputs for one row with read-out parameters from <paramref name="readout"/> (weights then biases).</summary>

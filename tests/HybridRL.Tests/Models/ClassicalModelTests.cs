@@ -54,3 +54,15 @@ public class ClassicalModelTests
         Assert.Null(model.Counters);
     }
 }
+
+public class MatchedBaselineTests
+{
+    [Fact]
+    public void MatchedHiddenSizesComeClosestToTheTarget()
+    {
+        // Hand count: obs 4, actions 2, two hidden layers of width w: 4w + w + w² + w + 2w + 2 = w² + 8w + 2.
+        // Target 100: w = 6 gives 86, w = 7 gives 107 → 7 is closer.
+        Assert.Equal(new[] { 7, 7 }, ModelFactory.MatchedClassicalHidden(100, 4, 2));
+        Assert.Equal(107, DenseNetwork.CountParameters(4, [7, 7], 2));
+    }
+}

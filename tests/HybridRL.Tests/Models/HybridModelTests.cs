@@ -101,6 +101,47 @@ public class HybridModelTests
     }
 
     [Fact]
+    public void QuantumLayerGradientsEqualTheEnginesAdjointChainedWithTheReadout()
+    {
+        TorchRuntime.EnsureLoaded();
+        using var model = (HybridModel)ModelFactory.Create(Settings(CompressorKind.None, ReadoutKind.PerAction, gradient: GradientMethod.Adjoint), 3, 2, 21);
+        var layer = model.QuantumLayer;
+        var ev = layer.Evaluator;
+        const int batch = 5;
+        var x = Uniform(batch * 3, 31);
+        var g = Uniform(batch * 2, 32);
+        using var xt = tensor(x, [batch, 3], dtype: float64).requires_grad_(true);
+        using (var loss = (layer.Forward(xt) * tensor(g, [batch, 2], dtype: float64)).sum()) loss.backward();
+        var gotWeights = HybridRLTestAccess.Flat(layer.Weights.grad!);
+        var gotInputs = HybridRLTestAccess.Flat(xt.grad!);
+
+        var w = HybridRLTestAccess.Flat(layer.Weights);
+        int pc = ev.ParameterCount;
+        var e = new double[batch * 2];
+        ev.Forward(x, w.AsSpan(0, pc), batch, false, e);
+        // Chain rule by hand for out_a = w_a·E_a + b_a: ∂L/∂E_a = g_a·w_a, ∂L/∂w_a = Σ_b g_a·E_a, ∂L/∂b_a = Σ_b g_a.
+        var gE = new double[batch * 2];
+        double[] gw = new double[2], gb = new double[2];
+        for (int b = 0; b < batch; b++)
+            for (int a = 0; a < 2; a++)
+            {
+                gE[b * 2 + a] = g[b * 2 + a] * w[pc + a];
+                gw[a] += g[b * 2 + a] * e[b * 2 + a];
+                gb[a] += g[b * 2 + a];
+            }
+        var gTheta = new double[pc];
+        var gIn = new double[batch * 3];
+        ev.Backward(x, w.AsSpan(0, pc), batch, false, gE, gTheta, gIn); // adjoint method (Jones & Gacon 2020), the engine's own
+        for (int i = 0; i < pc; i++) Assert.Equal(gTheta[i], gotWeights[i], 14);
+        for (int a = 0; a < 2; a++)
+        {
+            Assert.Equal(gw[a], gotWeights[pc + a], 14);
+            Assert.Equal(gb[a], gotWeights[pc + 2 + a], 14);
+        }
+        for (int i = 0; i < gIn.Length; i++) Assert.Equal(gIn[i], gotInputs[i], 14);
+    }
+
+    [Fact]
     public void AdjointAndParameterShiftAgreeThroughTheLayer()
     {
         TorchRuntime.EnsureLoaded();
@@ -221,5 +262,145 @@ public class HybridModelTests
         Assert.True(last < 0.5 * first, $"loss {first} → {last}");
         Assert.True(model.Counters!.CircuitExecutions >= 40 * 4);
         Assert.True(model.HardwareExecutionsPerGradientRow > 0);
+    }
+}
+
+public class HybridModelModesTests
+{
+    [Fact]
+    public void ActingPathAddsNoAllocationToTheEngines()
+    {
+        TorchRuntime.EnsureLoaded();
+        // Compressor rows allocate nothing.
+        var mps = new MpsCompressor(12, 4, 3, SiteFeatureMap.Trigonometric, new RandomStream(1));
+        var w = HybridRLTestAccess.Flat(mps.Weights);
+        var row = new double[3];
+        var scratch = new double[mps.ScratchSize];
+        var x = Enumerable.Range(0, 12).Select(i => 0.1 * i).ToArray();
+        mps.ForwardRow(w, x, row, scratch);
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 10; i++) mps.ForwardRow(w, x, row, scratch);
+        Assert.Equal(0, GC.GetAllocatedBytesForCurrentThread() - before);
+
+        // The whole acting path allocates exactly what the engine itself does for the same call (the engine's
+        // own allocation depends on the angles, so compare like with like).
+        var settings = new ModelSettings { Circuit = new CircuitSettings { Qubits = 3 } };
+        using var model = (HybridModel)ModelFactory.Create(settings, 3, 2, 1);
+        var ev = model.QuantumLayer.Evaluator;
+        var obs = new[] { 0.1, -0.2, 0.3, 0.4, 0.5, -0.6, 0.0, 0.2, 0.9, -1.0, 0.3, 0.7 };
+        var output = new double[8];
+        var expectations = new double[4 * ev.OutputCount];
+        var theta = HybridRLTestAccess.Flat(model.QuantumLayer.Weights)[..ev.ParameterCount];
+        for (int i = 0; i < 2; i++)
+        {
+            model.ForwardNoGrad(obs, 4, output);
+            ev.Forward(obs, theta, 4, false, expectations);
+        }
+        before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 10; i++) ev.Forward(obs, theta, 4, false, expectations);
+        long engine = GC.GetAllocatedBytesForCurrentThread() - before;
+        before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 10; i++) model.ForwardNoGrad(obs, 4, output);
+        long total = GC.GetAllocatedBytesForCurrentThread() - before;
+        Assert.True(total <= engine, $"model path allocated {total} bytes over 10 calls, the engine alone {engine}");
+    }
+
+    [Fact]
+    public void ShotModeTrainsThroughParameterShiftAndCountsShots()
+    {
+        TorchRuntime.EnsureLoaded();
+        var settings = new ModelSettings
+        {
+            Circuit = new CircuitSettings { Qubits = 2, Layers = 1 },
+            Simulation = new SimulationSettings { Mode = SimulationMode.Shots, Shots = 200 },
+        };
+        using var model = ModelFactory.Create(settings, 2, 2, 3);
+        using var x = tensor(new[] { 0.1, 0.2, -0.3, 0.4 }, [2, 2], dtype: float64);
+        using (var loss = model.Forward(x).sum()) loss.backward();
+        var grad = model.Parameters().SelectMany(p => HybridRLTestAccess.Flat(p.grad!)).ToArray();
+        Assert.All(grad, g => Assert.True(double.IsFinite(g)));
+        Assert.Contains(grad, g => g != 0);
+        Assert.True(model.Counters!.Shots > 0);
+        // Per-action read-out bias gradient of sum(out) is exactly 1 per row (by definition), whatever the shot noise.
+        Assert.Equal(2.0, grad[^1], 12);
+        Assert.Equal(2.0, grad[^2], 12);
+    }
+
+    [Fact]
+    public void ShotNoiseReplaysExactlyAfterRestoringTheSimulationState()
+    {
+        TorchRuntime.EnsureLoaded();
+        var settings = new ModelSettings
+        {
+            Circuit = new CircuitSettings { Qubits = 2, Layers = 1 },
+            Simulation = new SimulationSettings { Mode = SimulationMode.Shots, Shots = 50 },
+        };
+        using var model = ModelFactory.Create(settings, 2, 2, 3);
+        var sim = (ISimulatedModel)model;
+        var obs = new[] { 0.3, -0.1 };
+        var a = new double[2];
+        var b = new double[2];
+        var c = new double[2];
+        var state = sim.GetSimulationState();
+        model.ForwardNoGrad(obs, 1, a);
+        model.ForwardNoGrad(obs, 1, c);
+        sim.SetSimulationState(state);
+        model.ForwardNoGrad(obs, 1, b);
+        Assert.Equal(a, b);          // same stream position → same shots (checkpoint/resume contract)
+        Assert.NotEqual(a, c);       // 50 shots: successive estimates differ (probability of a tie is tiny)
+    }
+
+    [Fact]
+    public void NoiseInExactModeIsRejectedWithTheKeys()
+    {
+        TorchRuntime.EnsureLoaded();
+        var settings = new ModelSettings { Simulation = new SimulationSettings { Depolarizing = 0.01 } };
+        var ex = Assert.Throws<ModelConfigurationException>(() => ModelFactory.Create(settings, 2, 2, 3));
+        Assert.Contains("model.simulation.mode", ex.Message);
+    }
+}
+
+public class HybridModelEncodingTests
+{
+    [Fact]
+    public void BasisEncodingGivesTheZExpectationsOfTheComputationalState()
+    {
+        TorchRuntime.EnsureLoaded();
+        // One layer with all rotation angles set to 0 and no entangler leaves |s⟩ unchanged, so
+        // ⟨Z_q⟩ = (−1)^{bit_q(s)} (Z eigenstates, Nielsen & Chuang §2.1.3); read-out weights start at 1, biases at 0.
+        var settings = new ModelSettings
+        {
+            Circuit = new CircuitSettings { Qubits = 3, Layers = 1, Encoding = EncodingKind.Basis, Entangler = EntanglerPattern.None, Readout = ReadoutKind.PerAction },
+        };
+        using var model = ModelFactory.Create(settings, 1, 3, 1);
+        var flat = new double[model.ParameterCount];
+        model.GetFlat(flat);
+        var circuitCount = model.ParameterCounts["circuit"];
+        for (int i = 0; i < circuitCount; i++) flat[i] = 0.0;
+        model.SetFlat(flat);
+        var output = new double[3];
+        model.ForwardNoGrad([5.0], 1, output); // 5 = 0b101: qubits 0 and 2 are |1⟩
+        Assert.Equal(-1.0, output[0], 12);
+        Assert.Equal(1.0, output[1], 12);
+        Assert.Equal(-1.0, output[2], 12);
+    }
+
+    [Theory]
+    [InlineData(EncodingKind.Amplitude, 8, 3)]
+    [InlineData(EncodingKind.ProductZz, 3, 3)]
+    [InlineData(EncodingKind.DenseAngle, 6, 3)]
+    public void OtherEncodingsBuildAndDifferentiate(EncodingKind encoding, int features, int qubits)
+    {
+        TorchRuntime.EnsureLoaded();
+        var settings = new ModelSettings { Circuit = new CircuitSettings { Qubits = qubits, Layers = 1, Encoding = encoding, Readout = ReadoutKind.Linear } };
+        using var model = ModelFactory.Create(settings, features, 2, 1);
+        var x = Enumerable.Range(0, features).Select(i => 0.2 + 0.1 * i).ToArray();
+        using var input = tensor(x, [1, features], dtype: float64).requires_grad_(true);
+        using (var loss = model.Forward(input).sum()) loss.backward();
+        var g = HybridRLTestAccess.Flat(input.grad!);
+        Assert.Contains(g, v => v != 0);
+        var tooMany = ModelCircuit.Capacity(encoding, qubits) + 1;
+        var ex = Assert.Throws<ModelConfigurationException>(() => ModelFactory.Create(settings, tooMany, 2, 1));
+        Assert.Contains("model.circuit.encoding", ex.Message);
     }
 }

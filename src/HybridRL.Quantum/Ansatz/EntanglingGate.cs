@@ -1,0 +1,3 @@
+namespace HybridRL.Quantum.Ansatz;
+
+public enum EntanglingGate { CNOT, CZ }
