@@ -1,4 +1,5 @@
 using System.CommandLine;
+using System.CommandLine.Invocation;
 using HybridRL.Environments;
 using HybridRL.Experiments;
 using HybridRL.Experiments.Config;
@@ -24,7 +25,8 @@ public static class CommandRunner
         }
         try
         {
-            return result.Invoke();
+            // The default handler would print any exception as "Unhandled exception" with exit 1; ours maps bad input to 2.
+            return result.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false });
         }
         catch (Exception ex) when (IsInvalidInput(ex))
         {

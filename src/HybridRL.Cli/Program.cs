@@ -11,5 +11,8 @@ root.Options.Add(GlobalOptions.Quiet);
 root.Subcommands.Add(AboutCommand.Create());
 root.Subcommands.Add(TrainCommand.Create());
 root.Subcommands.Add(ResumeCommand.Create());
+root.Subcommands.Add(CompareCommand.Create());
+root.Subcommands.Add(ReportCommand.Create());
+root.Subcommands.Add(EstimateCommand.Create());
 
 return CommandRunner.Invoke(root, args);
