@@ -20,6 +20,9 @@ public static class CliApplication
         root.Subcommands.Add(EvalCommand.Create());
         root.Subcommands.Add(EnvCommand.Create());
         root.Subcommands.Add(BenchCommand.Create());
+        root.Subcommands.Add(CompareCommand.Create());
+        root.Subcommands.Add(ReportCommand.Create());
+        root.Subcommands.Add(EstimateCommand.Create());
         return root;
     }
 

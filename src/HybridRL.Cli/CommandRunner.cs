@@ -1,4 +1,5 @@
 using System.CommandLine;
+using System.CommandLine.Invocation;
 using HybridRL.Checkpoints;
 using HybridRL.Environments;
 using HybridRL.Experiments;

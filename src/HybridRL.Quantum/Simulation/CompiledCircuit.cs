@@ -82,6 +82,19 @@ internal sealed class CompiledCircuit
         int shifts = 0;
         foreach (int s in DifferentiableSlots) shifts += Primitives[SlotPrimitive[s]].IsControlledRotation ? 4 : 2;
         ShiftEvaluations = shifts;
+        var paramSlots = new List<int>();
+        int paramShifts = 0;
+        foreach (int s in diff)
+        {
+            var a = SlotAngles[s];
+            if (a.Kind == AngleKind.Parameter || (a.Kind == AngleKind.Input && a.ScaleParameter >= 0))
+            {
+                paramSlots.Add(s);
+                paramShifts += Primitives[SlotPrimitive[s]].IsControlledRotation ? 4 : 2;
+            }
+        }
+        ParameterSlots = [.. paramSlots];
+        ParameterShiftEvaluations = paramShifts;
     }
 
     public Circuit Circuit { get; }
@@ -94,6 +107,13 @@ internal sealed class CompiledCircuit
     public bool[] SlotDifferentiable { get; }
     /// <summary>Parameter-shift evaluations per row for one full gradient: 2 per Pauli rotation or phase, 4 per controlled rotation.</summary>
     public int ShiftEvaluations { get; }
+    /// <summary>
+    /// Slots whose angle depends on a trainable parameter (a rotation angle or a trainable input scale): the only slots
+    /// a gradient with respect to the parameters alone has to shift.
+    /// </summary>
+    public int[] ParameterSlots { get; }
+    /// <summary>Parameter-shift evaluations per row for a gradient with respect to the parameters only (no input gradient).</summary>
+    public int ParameterShiftEvaluations { get; }
     public IInputAngleMap[] Maps { get; }
     public int[] MapOffsets { get; }
     public int MappedCount { get; }

@@ -188,7 +188,9 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
         Grow(ref _gin, batch * I);
         var inArr = _in; var parArr = _par; var goutArr = _gout; var gparArr = _gpar; var ginArr = _gin;
         bool adjoint = GradientMethod == GradientMethod.Adjoint;
-        int hardwarePerRow = C.ShiftEvaluations * Plan.SettingCount;
+        // Without an input gradient, slots that depend on inputs alone need no shifted evaluations on hardware.
+        int[] shiftSlots = wantInputs ? C.DifferentiableSlots : C.ParameterSlots;
+        int hardwarePerRow = (wantInputs ? C.ShiftEvaluations : C.ParameterShiftEvaluations) * Plan.SettingCount;
         try
         {
             RunRows(batch, (ws, r, kt) =>
@@ -206,7 +208,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
                     ws.Executions += Plan.SettingCount;
                     ws.Hardware += hardwarePerRow;
                 }
-                else ShiftRow(ws, g, gTheta, kt);
+                else ShiftRow(ws, g, gTheta, kt, shiftSlots, hardwarePerRow);
                 var gp = new Span<double>(gparArr, r * P, P);
                 var gi = new Span<double>(ginArr, r * I, I);
                 gp.Clear(); gi.Clear();
@@ -233,13 +235,13 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     private static readonly double D1 = (Math.Sqrt(2) + 1) / (4 * Math.Sqrt(2));
     private static readonly double D2 = (Math.Sqrt(2) - 1) / (4 * Math.Sqrt(2));
 
-    /// <summary>Parameter-shift gradient of Σ_k g[k]·E_k for every differentiable slot; every shifted evaluation is counted.</summary>
-    private void ShiftRow(Workspace ws, ReadOnlySpan<double> g, Span<double> gTheta, int kt)
+    /// <summary>Parameter-shift gradient of Σ_k g[k]·E_k for the given slots (all differentiable ones, or the parameter-dependent ones when no input gradient is wanted); every shifted evaluation is counted.</summary>
+    private void ShiftRow(Workspace ws, ReadOnlySpan<double> g, Span<double> gTheta, int kt, int[] slots, int hardware)
     {
         var theta = ws.Theta;
         var o1 = ws.Out; var o2 = ws.Out2;
         int K = OutputCount;
-        foreach (int s in C.DifferentiableSlots)
+        foreach (int s in slots)
         {
             double t0 = theta[s];
             bool controlled = C.Primitives[C.SlotPrimitive[s]].IsControlledRotation;
@@ -258,7 +260,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
             theta[s] = t0;
             gTheta[s] = acc;
         }
-        ws.Hardware += C.ShiftEvaluations * Plan.SettingCount;
+        ws.Hardware += hardware;
     }
 
     // ---------------- shared measurement helpers ----------------

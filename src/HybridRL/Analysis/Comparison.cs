@@ -17,7 +17,7 @@ public static class Comparison
     {
         ArgumentNullException.ThrowIfNull(options);
         if (options.Inputs.Count == 0) throw new ArgumentException("compare needs at least one run or sweep folder", nameof(options));
-        var runs = RunFolder.Discover(options.Inputs);
+        var runs = RunRecord.Discover(options.Inputs);
         var result = Compute(runs, options);
         if (options.OutDir is not null) Write(result, options.OutDir);
         return result;
@@ -39,7 +39,7 @@ public static class Comparison
     }
 
     /// <summary>Computes the comparison of already loaded runs (no files written).</summary>
-    public static ComparisonResult Compute(IReadOnlyList<RunFolder> runs, ComparisonOptions options)
+    public static ComparisonResult Compute(IReadOnlyList<RunRecord> runs, ComparisonOptions options)
     {
         ArgumentNullException.ThrowIfNull(runs);
         ArgumentNullException.ThrowIfNull(options);
@@ -142,7 +142,7 @@ public static class Comparison
     }
 
     /// <summary>Chooses the return column: explicit name, or eval_return → train_return → fitness_mean when every run has values.</summary>
-    public static string ResolveMetric(IReadOnlyList<RunFolder> runs, string metric)
+    public static string ResolveMetric(IReadOnlyList<RunRecord> runs, string metric)
     {
         if (metric != "auto")
         {

@@ -6,7 +6,7 @@ namespace HybridRL.Analysis;
 /// <summary>Everything the comparison reports about one group of runs.</summary>
 public sealed record GroupResult(
     string Label,
-    IReadOnlyList<RunFolder> Runs,
+    IReadOnlyList<RunRecord> Runs,
     IReadOnlyList<LearningCurve> Curves,
     GroupCurveStatistics Curve,
     double[] FinalReturns,

@@ -22,15 +22,15 @@ public static class Report
         string outDir = options.OutDir is null ? full : Path.GetFullPath(options.OutDir);
         Directory.CreateDirectory(outDir);
         HardwareProfile? profile = options.HardwareProfilePath is null ? null : HardwareProfile.Load(options.HardwareProfilePath);
-        string text = RunFolder.IsRunFolder(full)
-            ? RunReport(RunFolder.Load(full), options, profile, outDir)
+        string text = RunRecord.IsRunFolder(full)
+            ? RunReport(RunRecord.Load(full), options, profile, outDir)
             : SweepReport(full, options, profile, outDir);
         string path = Path.Combine(outDir, "report.md");
         AtomicFile.WriteAllText(path, text);
         return path;
     }
 
-    private static string RunReport(RunFolder run, ReportOptions o, HardwareProfile? profile, string outDir)
+    private static string RunReport(RunRecord run, ReportOptions o, HardwareProfile? profile, string outDir)
     {
         var sb = new StringBuilder();
         sb.AppendLine($"# Run report: {run.Id}").AppendLine();
@@ -70,7 +70,7 @@ public static class Report
 
     private static string SweepReport(string dir, ReportOptions o, HardwareProfile? profile, string outDir)
     {
-        var runs = RunFolder.Discover([dir]);
+        var runs = RunRecord.Discover([dir]);
         var sb = new StringBuilder();
         sb.AppendLine($"# Sweep report: {Path.GetFileName(dir)}").AppendLine();
         sb.AppendLine($"Folder: `{dir}`; {runs.Count} run(s).").AppendLine();
@@ -111,7 +111,7 @@ public static class Report
         return sb.ToString();
     }
 
-    private static void Resources(StringBuilder sb, RunFolder run)
+    private static void Resources(StringBuilder sb, RunRecord run)
     {
         sb.AppendLine("## Model and circuit resources").AppendLine();
         sb.AppendLine($"Trainable parameters: {ComparisonWriter.Num(run.ParameterCount)}.").AppendLine();
@@ -124,14 +124,14 @@ public static class Report
         }
     }
 
-    private static void Evaluations(StringBuilder sb, RunFolder run)
+    private static void Evaluations(StringBuilder sb, RunRecord run)
     {
         sb.AppendLine("## Evaluation results").AppendLine();
         if (run.Evaluations.Count == 0) { sb.AppendLine("No eval-*.json files.").AppendLine(); return; }
         EvaluationTables(sb, run, "### ");
     }
 
-    private static void EvaluationTables(StringBuilder sb, RunFolder run, string headingPrefix)
+    private static void EvaluationTables(StringBuilder sb, RunRecord run, string headingPrefix)
     {
         foreach (var (name, values) in run.Evaluations)
         {
@@ -140,7 +140,7 @@ public static class Report
         }
     }
 
-    private static void LedgerSection(StringBuilder sb, IReadOnlyList<RunFolder> runs, ReportOptions o, HardwareProfile? profile)
+    private static void LedgerSection(StringBuilder sb, IReadOnlyList<RunRecord> runs, ReportOptions o, HardwareProfile? profile)
     {
         sb.AppendLine("Counts of what was simulated, and the hardware-equivalent executions a device would have needed " +
             "(parameter-shift gradients: 2 evaluations per Pauli-rotation parameter, 4 per controlled rotation; finite shots per expectation).").AppendLine();

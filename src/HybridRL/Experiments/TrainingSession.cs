@@ -221,12 +221,7 @@ public sealed class TrainingSession
         public void OnCheckpoint(ITrainer trainer, Action<BinaryWriter> loop, double? score)
         {
             metrics.FlushToDisk();
-            var writer = new CheckpointWriter();
-            trainer.Save((name, write) => writer.AddSection(name, write));
-            writer.AddSection("loop", loop);
-            writer.AddSection("config", w => w.Write(session._spec.ToYaml()));
-            var header = new CheckpointHeader { TrainerKind = trainer.Kind, ConfigHash = session._spec.Hash(), Step = trainer.Counters.EnvSteps };
-            string path = writer.Save(session._folder.CheckpointsDir, trainer.Counters.EnvSteps, header, score, session._spec.Logging.KeepCheckpoints);
+            string path = RunCheckpoint.Save(trainer, loop, session._spec, session._folder.CheckpointsDir, score);
             runLock.Touch();
             log.Debug("checkpoint {Path}", path);
         }

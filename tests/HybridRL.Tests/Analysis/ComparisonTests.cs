@@ -82,7 +82,7 @@ public class ComparisonTests
         string outDir = Path.Combine(runs.Root, "out");
         var options = new ComparisonOptions { Inputs = [sweep], Threshold = 50, GridPoints = 12, Resamples = 200, OutDir = outDir, Axis = CurveAxis.HardwareExecutions };
         var a = Comparison.Run(options);
-        var b = Comparison.Compute(RunFolder.Discover([sweep]), options);
+        var b = Comparison.Compute(RunRecord.Discover([sweep]), options);
         Assert.Equal(a.Groups[0].FinalMean, b.Groups[0].FinalMean);
         Assert.Equal(a.Groups[1].Curve.Iqm, b.Groups[1].Curve.Iqm);
 

@@ -65,7 +65,7 @@ public class CurveTests
         using var runs = new SyntheticRuns();
         runs.AddRun("sweep", "run-1", "deep_q", SyntheticRuns.Linear(10, 50, 1, 0));
         runs.AddRun("sweep", "run-2", "evolution", SyntheticRuns.Linear(10, 30, 1, 0), summary: false);
-        var found = RunFolder.Discover([Path.Combine(runs.Root, "sweep")]);
+        var found = RunRecord.Discover([Path.Combine(runs.Root, "sweep")]);
         Assert.Equal(2, found.Count);
         Assert.Equal("deep_q", found[0].ConfigValue("trainer.kind"));
         Assert.Equal("2", found[0].ConfigValue("model.layers.1"));
@@ -74,7 +74,7 @@ public class CurveTests
         Assert.Equal(12, found[0].ParameterCount);
         Assert.Contains(found[0].ParameterCounts, kv => kv.Key == "circuit" && kv.Value == 4);
         string empty = Directory.CreateDirectory(Path.Combine(runs.Root, "empty")).FullName;
-        var ex = Assert.Throws<InvalidDataException>(() => RunFolder.Discover([empty]));
+        var ex = Assert.Throws<InvalidDataException>(() => RunRecord.Discover([empty]));
         Assert.Contains("empty", ex.Message);
     }
 }

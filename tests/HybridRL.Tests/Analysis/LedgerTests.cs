@@ -101,7 +101,6 @@ public class LedgerTests
     [InlineData("name: a\nper_circuit_overhead_seconds: 0\ncircuits_per_job: 1\nqueue_latency_seconds: 0\n", "seconds_per_shot")]
     [InlineData("name: a\nseconds_per_shot: x\nper_circuit_overhead_seconds: 0\ncircuits_per_job: 1\nqueue_latency_seconds: 0\n", "seconds_per_shot")]
     [InlineData("name: a\nseconds_per_shot: 1\nper_circuit_overhead_seconds: 0\ncircuits_per_job: 0.5\nqueue_latency_seconds: 0\n", "circuits_per_job")]
-    [InlineData("name: a\nseconds_per_shot: 1\nper_circuit_overhead_seconds: 0\ncircuits_per_job: 1\nqueue_latency_seconds: 0\nprice_per_shot: 1\n", "currency")]
     [InlineData("name: a\nseconds_per_shot: 1\nper_circuit_overhead_seconds: 0\ncircuits_per_job: 1\nqueue_latency_seconds: 0\nspeed: 3\n", "speed")]
     [InlineData("name: a\nseconds_per_shot: -1\nper_circuit_overhead_seconds: 0\ncircuits_per_job: 1\nqueue_latency_seconds: 0\n", "seconds_per_shot")]
     public void ProfileErrorsNameTheKey(string yaml, string key)
@@ -109,5 +108,16 @@ public class LedgerTests
         var ex = Assert.Throws<InvalidDataException>(() => HardwareProfile.Parse(new StringReader(yaml), "profile.yaml"));
         Assert.Contains($"'{key}'", ex.Message);
         Assert.Contains("profile.yaml", ex.Message);
+    }
+
+    [Fact]
+    public void ProfileWithPriceButNoCurrency_IsAccepted_AsTheShippedExampleAndTheConfigHardwareSectionAre()
+    {
+        // configs/hardware/example-device.yaml has price_per_shot and no currency (the experiment config has no currency key).
+        var p = HardwareProfile.Parse(new StringReader("name: a\nseconds_per_shot: 1\nper_circuit_overhead_seconds: 0\ncircuits_per_job: 1\nqueue_latency_seconds: 0\nprice_per_shot: 2\n"), "profile.yaml");
+        Assert.Equal(2, p.PricePerShot);
+        Assert.Null(p.Currency);
+        // Hand-worked: 3 executions × 10 shots × 2 per shot = 60.
+        Assert.Equal(60, new HardwareLedger(3, 0, 3, 10).Estimate(p).Cost);
     }
 }

@@ -43,7 +43,7 @@ public sealed record HardwareLedger(double CircuitExecutions, double Shots, doub
     /// Ledger of a run from summary.json (falling back to the last metrics row). Shots per execution: the override,
     /// else summary ledger.shots_per_execution, else NaN (unknown).
     /// </summary>
-    public static HardwareLedger FromRun(RunFolder run, double? shotsPerExecution = null)
+    public static HardwareLedger FromRun(RunRecord run, double? shotsPerExecution = null)
     {
         ArgumentNullException.ThrowIfNull(run);
         double Get(string key)

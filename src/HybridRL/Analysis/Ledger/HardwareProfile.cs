@@ -7,7 +7,7 @@ namespace HybridRL.Analysis.Ledger;
 /// A user-supplied description of a quantum device's timing and price, used only to turn execution and shot
 /// counts into estimated device time and cost. All numbers come from the user; nothing here is a vendor figure.
 /// YAML keys: name, note (optional), seconds_per_shot, per_circuit_overhead_seconds, circuits_per_job,
-/// queue_latency_seconds, price_per_shot (optional), currency (required with price_per_shot).
+/// queue_latency_seconds, price_per_shot (optional), currency (optional label of the price; the experiment config's hardware section has none).
 /// </summary>
 public sealed record HardwareProfile(
     string Name,
@@ -55,9 +55,7 @@ public sealed record HardwareProfile(
             throw new InvalidDataException($"{source}: key 'circuits_per_job' must be a whole number ≥ 1, got '{values["circuits_per_job"]}'");
         double queue = NonNegative(values, "queue_latency_seconds", source);
         double? price = values.ContainsKey("price_per_shot") ? NonNegative(values, "price_per_shot", source) : null;
-        string? currency = values.TryGetValue("currency", out var c) ? c.Trim() : null;
-        if (price is not null && string.IsNullOrEmpty(currency))
-            throw new InvalidDataException($"{source}: key 'currency' is required when 'price_per_shot' is given");
+        string? currency = values.TryGetValue("currency", out var c) && c.Trim().Length > 0 ? c.Trim() : null;
         return new HardwareProfile(name.Trim(), values.TryGetValue("note", out var note) ? note : "", sps, overhead, (int)cpjValue, queue, price, currency);
     }
 

@@ -30,7 +30,7 @@ public static class LearningCurvePlot
     }
 
     /// <summary>Single-run curve(s) for a report: every named metrics column that has values, against the axis.</summary>
-    public static IReadOnlyList<string> WriteRun(RunFolder run, CurveAxis axis, IReadOnlyList<string> columns, string basePath)
+    public static IReadOnlyList<string> WriteRun(RunRecord run, CurveAxis axis, IReadOnlyList<string> columns, string basePath)
     {
         var plot = new Plot();
         int k = 0;

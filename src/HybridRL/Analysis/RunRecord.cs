@@ -1,14 +1,17 @@
+using HybridRL.Experiments.Runs;
+
 namespace HybridRL.Analysis;
 
 /// <summary>
-/// One run folder (<c>runs/&lt;name&gt;/&lt;run-id&gt;/</c>) as read by the analysis: resolved config.yaml (flattened to
-/// dotted keys), metrics.csv, summary.json when present, eval-*.json files and an optional resources.json.
+/// What a finished or partial run left in its folder (<c>runs/&lt;name&gt;/&lt;run-id&gt;/</c>), as read by the analysis:
+/// resolved config.yaml (flattened to dotted keys), metrics.csv, summary.json when present, eval-*.json files and an
+/// optional resources.json. Paths come from <see cref="RunFolder"/>, the writer's layout of the same folder.
 /// </summary>
-public sealed class RunFolder
+public sealed class RunRecord
 {
     private static readonly IReadOnlyDictionary<string, string> Empty = new Dictionary<string, string>();
 
-    private RunFolder(string path, IReadOnlyDictionary<string, string> config, MetricsTable metrics,
+    private RunRecord(string path, IReadOnlyDictionary<string, string> config, MetricsTable metrics,
         IReadOnlyDictionary<string, string> summary, IReadOnlyList<KeyValuePair<string, IReadOnlyDictionary<string, string>>> evaluations,
         IReadOnlyDictionary<string, string> resources, string status)
     {
@@ -63,36 +66,36 @@ public sealed class RunFolder
             .Select(kv => new KeyValuePair<string, double>(kv.Key["parameter_counts.".Length..], FlatJson.Number(Summary, kv.Key)))
             .ToArray();
 
-    public static bool IsRunFolder(string dir) => File.Exists(System.IO.Path.Combine(dir, "metrics.csv"));
+    /// <summary>Whether <paramref name="dir"/> holds a run's metrics.csv (the one file every started run has).</summary>
+    public static bool IsRunFolder(string dir) => File.Exists(new RunFolder(dir).MetricsPath);
 
-    public static RunFolder Load(string dir)
+    public static RunRecord Load(string dir)
     {
-        string full = System.IO.Path.GetFullPath(dir);
+        var folder = new RunFolder(dir);
+        string full = folder.Root;
         if (!Directory.Exists(full)) throw new DirectoryNotFoundException($"run folder not found: {dir}");
-        string metricsPath = System.IO.Path.Combine(full, "metrics.csv");
+        string metricsPath = folder.MetricsPath;
         if (!File.Exists(metricsPath)) throw new FileNotFoundException($"{full}: not a run folder (no metrics.csv)", metricsPath);
         var metrics = MetricsCsvReader.Read(metricsPath);
-        string configPath = System.IO.Path.Combine(full, "config.yaml");
-        var config = File.Exists(configPath) ? FlatYaml.Load(configPath) : Empty;
-        string summaryPath = System.IO.Path.Combine(full, "summary.json");
-        var summary = File.Exists(summaryPath) ? FlatJson.Load(summaryPath) : Empty;
+        var config = File.Exists(folder.ConfigPath) ? FlatYaml.Load(folder.ConfigPath) : Empty;
+        var summary = File.Exists(folder.SummaryPath) ? FlatJson.Load(folder.SummaryPath) : Empty;
         string resourcesPath = System.IO.Path.Combine(full, "resources.json");
         var resources = File.Exists(resourcesPath) ? FlatJson.Load(resourcesPath) : Empty;
         var evals = Directory.GetFiles(full, "eval-*.json").OrderBy(f => f, StringComparer.Ordinal)
             .Select(f => new KeyValuePair<string, IReadOnlyDictionary<string, string>>(System.IO.Path.GetFileName(f), FlatJson.Load(f)))
             .ToArray();
         string status = summary.TryGetValue("status", out var st) && st.Length > 0 ? st
-            : File.Exists(System.IO.Path.Combine(full, "failed.json")) ? "failed"
-            : File.Exists(System.IO.Path.Combine(full, "run.lock")) ? "running"
+            : File.Exists(folder.FailedPath) ? "failed"
+            : File.Exists(folder.LockPath) ? "running"
             : "incomplete";
-        return new RunFolder(full, config, metrics, summary, evals, resources, status);
+        return new RunRecord(full, config, metrics, summary, evals, resources, status);
     }
 
     /// <summary>
     /// Resolves arguments that are run folders or sweep folders (any folder whose descendants hold run folders)
     /// into run folders, sorted by path. Throws naming the argument when it holds no run.
     /// </summary>
-    public static IReadOnlyList<RunFolder> Discover(IEnumerable<string> paths)
+    public static IReadOnlyList<RunRecord> Discover(IEnumerable<string> paths)
     {
         var found = new SortedSet<string>(StringComparer.Ordinal);
         foreach (string p in paths)
