@@ -30,6 +30,7 @@ public sealed class SlipperyWarehouseEnvironment : IEnvironment
         {
             GridObservation.OneHot => _map.StateCount,
             GridObservation.Binary => _bits,
+            GridObservation.Index => 1,
             _ => 2,
         };
     }
@@ -38,7 +39,7 @@ public sealed class SlipperyWarehouseEnvironment : IEnvironment
     public GridMap Map => _map;
     public int ObservationSize { get; }
     public int ActionCount => GridMoves.ActionCount;
-    public bool ObservationIsBinary => _settings.Observation != GridObservation.Coordinates;
+    public bool ObservationIsBinary => _settings.Observation is GridObservation.OneHot or GridObservation.Binary;
     public int StateCount => _map.StateCount;
     public int StateIndex => _state;
     public bool SupportsStateSave => true;
@@ -89,6 +90,9 @@ public sealed class SlipperyWarehouseEnvironment : IEnvironment
             case GridObservation.Binary:
                 // Most significant bit first.
                 for (int i = 0; i < _bits; i++) o[i] = (_state >> (_bits - 1 - i)) & 1;
+                break;
+            case GridObservation.Index:
+                o[0] = _state;
                 break;
             default:
                 o[0] = _map.Height > 1 ? _map.RowOf(_state) / (double)(_map.Height - 1) : 0;

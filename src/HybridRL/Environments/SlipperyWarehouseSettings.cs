@@ -34,10 +34,11 @@ public sealed class SlipperyWarehouseSettings : EnvironmentSettings
         double dock = p.Double("dock_reward", -1000, 1000);
         double hole = p.Double("hole_penalty", -1000, 1000);
         int maxSteps = p.Int("max_steps", 1, 10_000_000);
-        var obs = p.Choice("observation", "one-hot", "binary", "coordinates") switch
+        var obs = p.Choice("observation", "one-hot", "binary", "index", "coordinates") switch
         {
             "one-hot" => GridObservation.OneHot,
             "binary" => GridObservation.Binary,
+            "index" => GridObservation.Index,
             _ => GridObservation.Coordinates,
         };
         return new SlipperyWarehouseSettings(p.Resolved)

@@ -204,7 +204,9 @@ public sealed class ExperimentComponents : IDisposable
         Encoding = c.Encoding switch
         {
             Cfg.EncodingKind.Angle or Cfg.EncodingKind.Reuploading => Mdl.EncodingKind.AngleX,
-            _ => throw new ConfigException([new ConfigError("model.circuit.encoding", null, null, $"encoding '{ChoiceNames.ToName(c.Encoding)}' is not available in the model builder yet; use angle or reuploading")]),
+            Cfg.EncodingKind.Basis => Mdl.EncodingKind.Basis,
+            Cfg.EncodingKind.Amplitude => Mdl.EncodingKind.Amplitude,
+            _ => Mdl.EncodingKind.ProductZz,
         },
         Reupload = c.Encoding == Cfg.EncodingKind.Reuploading,
         Rotations = c.Rotations.Select(r => r switch { Cfg.RotationAxis.Rx => Mdl.RotationAxis.X, Cfg.RotationAxis.Ry => Mdl.RotationAxis.Y, _ => Mdl.RotationAxis.Z }).ToArray(),
