@@ -2,6 +2,7 @@ using System.CommandLine;
 using HybridRL.Environments;
 using HybridRL.Experiments;
 using HybridRL.Experiments.Config;
+using HybridRL.Experiments.Executors;
 using HybridRL.Experiments.Runs;
 using HybridRL.Experiments.Sweeps;
 using HybridRL.Models;
@@ -24,7 +25,8 @@ public static class CommandRunner
         }
         try
         {
-            return result.Invoke();
+            // The default handler would print every exception as a crash and return 1; the known ones are mapped below.
+            return result.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false });
         }
         catch (Exception ex) when (IsInvalidInput(ex))
         {
@@ -39,6 +41,16 @@ public static class CommandRunner
         catch (RunLockedException ex)
         {
             Console.Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.Failure;
+        }
+        catch (ExecutorException ex)
+        {
+            Console.Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.Failure;
+        }
+        catch (Exception ex)
+        {
+            Console.Error.WriteLine($"error: unexpected failure: {ex}");
             return ExitCodes.Failure;
         }
     }

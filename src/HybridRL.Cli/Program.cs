@@ -11,5 +11,6 @@ root.Options.Add(GlobalOptions.Quiet);
 root.Subcommands.Add(AboutCommand.Create());
 root.Subcommands.Add(TrainCommand.Create());
 root.Subcommands.Add(ResumeCommand.Create());
+root.Subcommands.Add(SweepCommand.Create());
 
 return CommandRunner.Invoke(root, args);
