@@ -34,6 +34,20 @@ public class SweepPlanAndStatusTests
         Assert.Contains("model.circuit.layers", e.Message);
     }
 
+    [Fact]
+    public void Shipped_optimizer_sweep_gives_every_trainer_five_seeds_with_distinct_ids_and_valid_configs()
+    {
+        string file = Path.GetFullPath(Path.Combine(Path.GetDirectoryName(SweepTestFiles.TinyWarehousePath)!, "..", "..", "..", "..", "configs", "optimizers-sweep.yaml"));
+        var plan = SweepPlan.Load(file);
+        Assert.Equal(20, plan.Runs.Count);
+        Assert.Equal(20, plan.Runs.Select(r => r.Id).Distinct().Count());
+        var resolver = new SpecBudgetResolver(plan.BasePath, new Dictionary<string, string>());
+        var specs = plan.Runs.Select(resolver.Spec).ToArray(); // every run's config is valid
+        foreach (var kind in Enum.GetValues<HybridRL.Experiments.Config.TrainerKind>())
+            Assert.Equal([1L, 2, 3, 4, 5], specs.Where(s => s.Trainer.Kind == kind).Select(s => (long)s.Experiment.Seed).Order());
+        Assert.Single(specs.Select(s => s.Experiment.Budget.EnvSteps).Distinct()); // one budget for all optimisers
+    }
+
     private static void Json(string dir, string name, string text)
     {
         string path = Path.Combine(dir, name);
