@@ -23,6 +23,7 @@ public static class CliApplication
         root.Subcommands.Add(CompareCommand.Create());
         root.Subcommands.Add(ReportCommand.Create());
         root.Subcommands.Add(EstimateCommand.Create());
+        root.Subcommands.Add(SweepCommand.Create());
         return root;
     }
 

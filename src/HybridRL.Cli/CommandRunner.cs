@@ -4,6 +4,7 @@ using HybridRL.Checkpoints;
 using HybridRL.Environments;
 using HybridRL.Experiments;
 using HybridRL.Experiments.Config;
+using HybridRL.Experiments.Executors;
 using HybridRL.Experiments.Runs;
 using HybridRL.Experiments.Sweeps;
 using HybridRL.Models;
@@ -26,7 +27,7 @@ public static class CommandRunner
         }
         try
         {
-            // Exceptions reach the handlers below (the library's default handler would print a stack trace and return 1).
+            // The default handler would print every exception as a crash and return 1; the known ones are mapped below.
             return result.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false });
         }
         catch (Exception ex) when (IsInvalidInput(ex))
@@ -34,19 +35,14 @@ public static class CommandRunner
             Console.Error.WriteLine($"error: {ex.Message}");
             return ExitCodes.InvalidInput;
         }
-        catch (TorchUnavailableException ex)
+        catch (Exception ex) when (ex is TorchUnavailableException or CheckpointCorruptException or InvalidDataException or RunLockedException or ExecutorException)
         {
             Console.Error.WriteLine($"error: {ex.Message}");
             return ExitCodes.Failure;
         }
-        catch (Exception ex) when (ex is CheckpointCorruptException or InvalidDataException)
+        catch (Exception ex)
         {
-            Console.Error.WriteLine($"error: {ex.Message}");
-            return ExitCodes.Failure;
-        }
-        catch (RunLockedException ex)
-        {
-            Console.Error.WriteLine($"error: {ex.Message}");
+            Console.Error.WriteLine($"error: unexpected failure: {ex}");
             return ExitCodes.Failure;
         }
     }

@@ -32,6 +32,7 @@ public sealed class ProgressReporter
 
     public void Update(ITrainer trainer, double progress, bool force = false)
     {
+        if (!_live && _plainEverySeconds <= 0) return; // logging.progress_seconds: 0 means no plain progress lines
         double now = _clock.Elapsed.TotalSeconds;
         double every = _live ? 0.25 : _plainEverySeconds;
         if (!force && now - _lastDraw < every) return;

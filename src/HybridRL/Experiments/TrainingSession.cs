@@ -86,6 +86,7 @@ public sealed class TrainingSession
         using var log = LogSetup.CreateForRun(_verbosity, _folder.LogPath);
         if (runLock.TakeoverNote is not null) log.Warning("{Note}", runLock.TakeoverNote);
         if (File.Exists(_folder.FailedPath)) File.Delete(_folder.FailedPath);
+        RefuseChangedConfigOnResume();
         AtomicFile.WriteAllText(_folder.ConfigPath, _spec.ToAnnotatedYaml());
 
         using var components = ExperimentComponents.Build(_spec);
@@ -144,6 +145,21 @@ public sealed class TrainingSession
             _out.WriteLine($"summary: {_folder.SummaryPath}");
             return ExitCodes.Done;
         }
+    }
+
+    /// <summary>
+    /// A folder with checkpoints is resumed with the config it was started with: a new spec (e.g. an edited base file behind a
+    /// sweep or train call reusing a run id) may differ only in keys that are safe on resume, or the run stops with exit 2.
+    /// </summary>
+    private void RefuseChangedConfigOnResume()
+    {
+        if (!File.Exists(_folder.ConfigPath) || CheckpointStore.List(_folder.CheckpointsDir).Count == 0) return;
+        var saved = ExperimentSpecLoader.Load([_folder.ConfigPath], [], new Dictionary<string, string>());
+        var diff = SpecDiff.Compare(saved, _spec);
+        if (diff.IsSafeForResume) return;
+        var keys = string.Join(", ", diff.UnsafeDifferences.Select(d => $"{d.Key} ({d.Before} → {d.After})"));
+        throw new ConfigException([new ConfigError("run", _folder.ConfigPath, null,
+            $"'{_folder.Root}' holds checkpoints of a different config: {keys}; resume it unchanged or start a new run (another run id)")]);
     }
 
     private RunSummary Summarise(ExperimentComponents components, double? bestEvaluation)

@@ -7,6 +7,10 @@ internal static class ConfigTestPaths
 
     public static string ConfigsFolder => Path.Combine(RepositoryRoot, "configs");
 
+    /// <summary>The experiment files in configs/ (sorted); sweep files, named <c>*-sweep.yaml</c>, are not experiments.</summary>
+    public static string[] ExperimentFiles() =>
+        Directory.GetFiles(ConfigsFolder, "*.yaml").Where(f => !f.EndsWith("-sweep.yaml", StringComparison.Ordinal)).OrderBy(f => f, StringComparer.Ordinal).ToArray();
+
     public static string BadCasesFolder => Path.Combine(RepositoryRoot, "tests", "HybridRL.Tests", "Config", "bad");
 
     private static string FindRoot()

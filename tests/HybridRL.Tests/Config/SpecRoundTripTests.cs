@@ -11,7 +11,7 @@ public sealed class SpecRoundTripTests : IDisposable
     public static TheoryData<string> ExampleConfigs()
     {
         var data = new TheoryData<string>();
-        foreach (var f in Directory.GetFiles(ConfigTestPaths.ConfigsFolder, "*.yaml").OrderBy(f => f, StringComparer.Ordinal)) data.Add(Path.GetFileName(f));
+        foreach (var f in ConfigTestPaths.ExperimentFiles()) data.Add(Path.GetFileName(f));
         return data;
     }
 
@@ -39,7 +39,7 @@ public sealed class SpecRoundTripTests : IDisposable
     [Fact]
     public void Example_configs_cover_every_trainer_and_the_hardware_profile_is_used()
     {
-        var specs = Directory.GetFiles(ConfigTestPaths.ConfigsFolder, "*.yaml").Select(ExperimentSpecLoader.LoadFile).ToList();
+        var specs = ConfigTestPaths.ExperimentFiles().Select(ExperimentSpecLoader.LoadFile).ToList();
         Assert.Equal(Enum.GetValues<TrainerKind>().Order(), specs.Select(s => s.Trainer.Kind).Distinct().Order());
         var noisy = specs.Single(s => s.Experiment.Name == "noisy-shots");
         Assert.Equal("example-device", noisy.Hardware!.Name);

@@ -1,4 +1,5 @@
 using HybridRL.Experiments.Executors;
+using HybridRL.Experiments.Runs;
 using HybridRL.Experiments.Sweeps;
 
 namespace HybridRL.Tests.Sweeps;
@@ -6,23 +7,45 @@ namespace HybridRL.Tests.Sweeps;
 public class SweepPlanAndStatusTests
 {
     [Fact]
-    public void Plan_table_lists_runs_and_sums_budget_from_overrides_and_base()
+    public void Plan_table_lists_runs_and_sums_budgets_resolved_by_the_config_loader()
     {
         using var files = new SweepTestFiles();
-        var plan = SweepPlan.Load(files.Write("b.yaml", "base: base-experiment.yaml\ngrid:\n  trainer.env_steps: [100, 200]\nseeds: [1, 2, 3]\n"), files.Dir);
-        var resolver = new YamlBudgetResolver(plan.BasePath, ["trainer.env_steps", "trainer.max_generations", "trainer.absent"]);
+        File.Copy(SweepTestFiles.DataPath("tiny-warehouse.yaml"), Path.Combine(files.Dir, "tiny.yaml"));
+        var plan = SweepPlan.Load(files.Write("b.yaml", "base: tiny.yaml\ngrid:\n  experiment.budget.env_steps: [100, 200]\n  trainer.kind: [dqn, cma_es]\nseeds: [1, 2, 3]\n"), files.Dir);
+        var resolver = new SpecBudgetResolver(plan.BasePath, new Dictionary<string, string>());
         var totals = SweepPlanTable.TotalBudget(plan, resolver.Resolve).ToDictionary(kv => kv.Key, kv => kv.Value);
-        // hand-worked: env_steps overridden (100 + 200) x 3 seeds = 900; max_generations 50 from the base x 6 runs = 300
-        Assert.Equal(900, totals["trainer.env_steps"]);
-        Assert.Equal(300, totals["trainer.max_generations"]);
-        Assert.False(totals.ContainsKey("trainer.absent"));
+        // hand-worked: env_steps overridden (100 + 200) x 2 kinds x 3 seeds = 1800; wall_seconds 600 from the base x 12 runs = 7200;
+        // episodes, generations and circuit executions are 0 (unlimited) by default and are left out
+        Assert.Equal(1800, totals[SpecBudgetResolver.EnvSteps]);
+        Assert.Equal(7200, totals[SpecBudgetResolver.WallSeconds]);
+        Assert.Equal(2, totals.Count);
 
         string table = SweepPlanTable.Format(plan, resolver.Resolve);
         var lines = table.Split('\n', StringSplitOptions.RemoveEmptyEntries);
-        Assert.Contains("6 runs", lines[0]);
-        Assert.Contains(lines, l => l.TrimStart().StartsWith("5  ") && l.Contains(plan.Runs[5].Id) && l.Contains("trainer.env_steps=200 experiment.seed=3"));
-        Assert.Contains("total trainer.env_steps: 900", table);
-        Assert.Contains("total trainer.max_generations: 300", table);
+        Assert.Contains("12 runs", lines[0]);
+        Assert.Contains(lines, l => l.TrimStart().StartsWith("11  ") && l.Contains(plan.Runs[11].Id) && l.Contains("experiment.budget.env_steps=200 trainer.kind=cma_es experiment.seed=3"));
+        Assert.Contains("total experiment.budget.env_steps: 1800", table);
+
+        // the loader validates every run: an out-of-range override names the run and the key
+        var bad = SweepPlan.Load(files.Write("bad.yaml", "base: tiny.yaml\ngrid:\n  model.circuit.layers: [1, -1]\n"), files.Dir);
+        var badResolver = new SpecBudgetResolver(bad.BasePath, new Dictionary<string, string>());
+        var e = Assert.Throws<SweepFileException>(() => SweepPlanTable.TotalBudget(bad, badResolver.Resolve));
+        Assert.Contains("run 1", e.Message);
+        Assert.Contains("model.circuit.layers", e.Message);
+    }
+
+    [Fact]
+    public void Shipped_optimizer_sweep_gives_every_trainer_five_seeds_with_distinct_ids_and_valid_configs()
+    {
+        string file = Path.GetFullPath(Path.Combine(Path.GetDirectoryName(SweepTestFiles.TinyWarehousePath)!, "..", "..", "..", "..", "configs", "optimizers-sweep.yaml"));
+        var plan = SweepPlan.Load(file);
+        Assert.Equal(20, plan.Runs.Count);
+        Assert.Equal(20, plan.Runs.Select(r => r.Id).Distinct().Count());
+        var resolver = new SpecBudgetResolver(plan.BasePath, new Dictionary<string, string>());
+        var specs = plan.Runs.Select(resolver.Spec).ToArray(); // every run's config is valid
+        foreach (var kind in Enum.GetValues<HybridRL.Experiments.Config.TrainerKind>())
+            Assert.Equal([1L, 2, 3, 4, 5], specs.Where(s => s.Trainer.Kind == kind).Select(s => (long)s.Experiment.Seed).Order());
+        Assert.Single(specs.Select(s => s.Experiment.Budget.EnvSteps).Distinct()); // one budget for all optimisers
     }
 
     private static void Json(string dir, string name, string text)
@@ -33,35 +56,20 @@ public class SweepPlanAndStatusTests
     }
 
     [Fact]
-    public void Run_folders_are_classified_from_their_files()
+    public void Status_of_run_folders_comes_from_the_shared_run_status()
     {
         using var files = new SweepTestFiles();
-        string D(string n) => Path.Combine(files.Dir, n);
-        Json(D("done"), "summary.json", """{"run_id":"x","status":"done"}""");
-        Json(D("done"), "run.lock", $$"""{"pid":{{Environment.ProcessId}},"host":"{{Environment.MachineName}}","started":"2026-01-01T00:00:00Z"}"""); // done wins over a leftover lock
-        Json(D("running"), "run.lock", $$"""{"pid":{{Environment.ProcessId}},"host":"{{Environment.MachineName}}","started":"2026-01-01T00:00:00Z"}""");
-        Json(D("elsewhere"), "run.lock", """{"pid":1234,"host":"another-node","started":"2026-01-01T00:00:00Z"}""");
-        Json(D("stale"), "run.lock", $$"""{"pid":99999999,"host":"{{Environment.MachineName}}","started":"2026-01-01T00:00:00Z"}""");
-        Json(D("interrupted"), "checkpoints/latest.ckpt", "x");
-        Json(D("failed"), "failed.json", """{"error":"loss became NaN"}""");
-        Json(D("failed"), "checkpoints/latest.ckpt", "x");
-        Json(D("halfdone"), "summary.json", """{"status":"writing"}""");
-        Directory.CreateDirectory(D("empty"));
-
-        RunFolderState S(string n) => RunFolderInspector.Inspect(D(n)).State;
-        Assert.Equal(RunFolderState.Done, S("done"));
-        Assert.Equal(RunFolderState.Running, S("running"));
-        Assert.Equal(RunFolderState.Running, S("elsewhere"));
-        Assert.Contains("another-node", RunFolderInspector.Inspect(D("elsewhere")).Detail);
-        Assert.Equal(RunFolderState.Interrupted, S("stale"));
-        Assert.Equal(RunFolderState.Interrupted, S("interrupted"));
-        Assert.Equal(RunFolderState.Failed, S("failed"));
-        Assert.Contains("loss became NaN", RunFolderInspector.Inspect(D("failed")).Detail);
-        Assert.Equal(RunFolderState.Pending, S("halfdone"));
-        Assert.Equal(RunFolderState.Pending, S("empty"));
-        Assert.Equal(RunFolderState.Pending, S("missing"));
-        // the liveness check is what separates running from stale
-        Assert.Equal(RunFolderState.Interrupted, RunFolderInspector.Inspect(D("running"), _ => false).State);
+        var plan = SweepPlan.Load(files.Write("rs.yaml", "base: base-experiment.yaml\nseeds: [1, 2, 3]\n"), files.Dir);
+        // run 0: never started (no folder); run 1: locked by a process on another host that checked in just now;
+        // run 2: locked by a pid that does not exist on this host (stale) after writing metrics
+        Json(plan.RunDir(plan.Runs[1]), "run.lock", $$"""{"pid":1234,"host":"another-node","started":"{{DateTime.UtcNow:O}}"}""");
+        Json(plan.RunDir(plan.Runs[2]), "run.lock", $$"""{"pid":{{int.MaxValue}},"host":"{{Environment.MachineName}}","started":"2026-01-01T00:00:00Z"}""");
+        Json(plan.RunDir(plan.Runs[2]), "metrics.csv", "env_steps\n");
+        var rows = SweepStatusReader.Read(plan, null);
+        Assert.Equal([RunState.Pending, RunState.Running, RunState.Interrupted], rows.Select(r => r.Folder.State));
+        Assert.Contains("another-node", rows[1].Folder.Detail);
+        Assert.Contains("stale run.lock", rows[2].Folder.Detail);
+        Assert.All(rows, r => Assert.Null(r.SlurmState));
     }
 
     [Fact]
@@ -86,13 +94,13 @@ public class SweepPlanAndStatusTests
         using var files = new SweepTestFiles();
         var plan = SweepPlan.Load(files.Write("st.yaml", "base: base-experiment.yaml\nseeds: [1, 2, 3, 4]\n"), files.Dir);
         Json(plan.RunDir(plan.Runs[0]), "summary.json", """{"status":"done"}""");
-        Json(plan.RunDir(plan.Runs[1]), "checkpoints/a", "x");
+        Json(plan.RunDir(plan.Runs[1]), "metrics.csv", "env_steps\n"); // started, no summary
         Json(plan.RunDir(plan.Runs[2]), "failed.json", "{}");
         SubmittedJobs.Append(plan.SweepDir, "70");
         SubmittedJobs.Append(plan.SweepDir, "71");
         var queue = SlurmQueue.Parse("70_3 RUNNING\n71_1 PENDING\n99_2 RUNNING\n");
         var rows = SweepStatusReader.Read(plan, queue);
-        Assert.Equal([RunFolderState.Done, RunFolderState.Interrupted, RunFolderState.Failed, RunFolderState.Pending], rows.Select(r => r.Folder.State));
+        Assert.Equal([RunState.Done, RunState.Interrupted, RunState.Failed, RunState.Pending], rows.Select(r => r.Folder.State));
         Assert.Equal([null, "PENDING", null, "RUNNING"], rows.Select(r => r.SlurmState)); // job 99 is not this sweep's
         Assert.Equal("71_1", rows[1].SlurmJob);
         string text = SweepStatusReader.Format(rows);

@@ -23,6 +23,9 @@ public sealed class SweepTestFiles : IDisposable
         return path;
     }
 
+    /// <summary>The base experiment in the real schema (Data/tiny-warehouse.yaml), for tests that train.</summary>
+    public static string TinyWarehousePath => DataPath("tiny-warehouse.yaml");
+
     public static string DataPath(string name, [CallerFilePath] string here = "") => Path.Combine(Path.GetDirectoryName(here)!, "Data", name);
 
     public void Dispose()

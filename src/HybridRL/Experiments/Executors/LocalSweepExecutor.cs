@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
+using HybridRL.Experiments.Runs;
 using HybridRL.Experiments.Sweeps;
 
 namespace HybridRL.Experiments.Executors;
@@ -31,10 +32,10 @@ public sealed class LocalSweepExecutor(ITaskCommand command, TextWriter? progres
         foreach (var run in plan.Runs)
         {
             if (options.Indices is { } only && !only.Contains(run.Index)) continue;
-            var status = RunFolderInspector.Inspect(plan.RunDir(run));
-            if (status.State == RunFolderState.Done)
+            var status = RunStatus.Detect(new RunFolder(plan.RunDir(run)));
+            if (status.State == RunState.Done)
                 outcomes[run.Index] = new LocalRunOutcome(run.Index, run.Id, LocalRunResult.SkippedDone, null, TimeSpan.Zero);
-            else if (status.State == RunFolderState.Running)
+            else if (status.State == RunState.Running)
             {
                 outcomes[run.Index] = new LocalRunOutcome(run.Index, run.Id, LocalRunResult.SkippedRunning, null, TimeSpan.Zero);
                 Say($"run {run.Index} ({run.Id}) skipped: running ({status.Detail})");

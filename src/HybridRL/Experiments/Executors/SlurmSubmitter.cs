@@ -1,4 +1,5 @@
 using System.Text.RegularExpressions;
+using HybridRL.Experiments.Runs;
 using HybridRL.Experiments.Sweeps;
 
 namespace HybridRL.Experiments.Executors;
@@ -17,7 +18,7 @@ public sealed partial class SlurmSubmitter(ITaskCommand command, ICommandRunner?
     /// <summary>Indices to submit: all, or (default) those whose run folder is not done and not running.</summary>
     public static IReadOnlyList<int> SelectIndices(SweepPlan plan, SlurmSubmitOptions options) =>
         plan.Runs
-            .Where(r => !options.OnlyUnfinished || RunFolderInspector.Inspect(plan.RunDir(r)).State is not (RunFolderState.Done or RunFolderState.Running))
+            .Where(r => !options.OnlyUnfinished || RunStatus.Detect(new RunFolder(plan.RunDir(r))).State is not (RunState.Done or RunState.Running))
             .Select(r => r.Index)
             .ToArray();
 

@@ -1,17 +1,18 @@
 using System.Globalization;
 using System.Text;
 using HybridRL.Experiments.Executors;
+using HybridRL.Experiments.Runs;
 
 namespace HybridRL.Experiments.Sweeps;
 
 /// <summary>
-/// <c>sweep status</c>: each run's state from its run folder, plus its Slurm state from the queue for the jobs this sweep submitted
+/// <c>sweep status</c>: each run's state from its run folder (<see cref="RunStatus.Detect"/>, the same verdict train and resume use), plus its Slurm state from the queue for the jobs this sweep submitted
 /// (<c>slurm-jobs.txt</c>; the newest job holding an index wins).
 /// </summary>
 public static class SweepStatusReader
 {
     /// <summary>Rows for all runs. <paramref name="queue"/>: parsed squeue output, or null when Slurm is not available.</summary>
-    public static IReadOnlyList<SweepRunStatus> Read(SweepPlan plan, IReadOnlyList<SlurmQueueEntry>? queue, Func<int, bool>? isAlive = null)
+    public static IReadOnlyList<SweepRunStatus> Read(SweepPlan plan, IReadOnlyList<SlurmQueueEntry>? queue)
     {
         var slurm = new Dictionary<int, (string Job, string State)>();
         if (queue is not null)
@@ -24,7 +25,7 @@ public static class SweepStatusReader
         }
         return plan.Runs.Select(r =>
         {
-            var folder = RunFolderInspector.Inspect(plan.RunDir(r), isAlive);
+            var folder = RunStatus.Detect(new RunFolder(plan.RunDir(r)));
             bool queued = slurm.TryGetValue(r.Index, out var s);
             return new SweepRunStatus(r.Index, r.Id, folder, queued ? $"{s.Job}_{r.Index}" : null, queued ? s.State : null);
         }).ToArray();

@@ -1,4 +1,5 @@
 using System.Globalization;
+using HybridRL.Experiments.Runs;
 
 namespace HybridRL.Experiments.Sweeps;
 
@@ -26,8 +27,7 @@ public static class SweepTaskRunner
     public static int Run(SweepPlan plan, int index, ITrainTask task, CancellationToken ct, TextWriter? log = null)
     {
         var run = plan.Run(index);
-        var status = RunFolderInspector.Inspect(plan.RunDir(run));
-        if (status.State == RunFolderState.Done)
+        if (RunStatus.Detect(new RunFolder(plan.RunDir(run))).State == RunState.Done)
         {
             log?.WriteLine($"sweep {plan.Name}: run {index} ({run.Id}) is already done");
             return 0;
