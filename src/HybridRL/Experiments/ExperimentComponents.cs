@@ -198,7 +198,8 @@ public sealed class ExperimentComponents : IDisposable
         Encoding = c.Encoding switch
         {
             Cfg.EncodingKind.Angle or Cfg.EncodingKind.Reuploading => Mdl.EncodingKind.AngleX,
-            _ => throw new ConfigException([new ConfigError("model.circuit.encoding", null, null, $"encoding '{ChoiceNames.ToName(c.Encoding)}' is not available in the model builder yet; use angle or reuploading")]),
+            Cfg.EncodingKind.Basis => Mdl.EncodingKind.Basis,
+            _ => throw new ConfigException([new ConfigError("model.circuit.encoding", null, null, $"encoding '{ChoiceNames.ToName(c.Encoding)}' is not available in the model builder yet; use basis, angle or reuploading")]),
         },
         Reupload = c.Encoding == Cfg.EncodingKind.Reuploading,
         Rotations = c.Rotations.Select(r => r switch { Cfg.RotationAxis.Rx => Mdl.RotationAxis.X, Cfg.RotationAxis.Ry => Mdl.RotationAxis.Y, _ => Mdl.RotationAxis.Z }).ToArray(),

@@ -6,7 +6,7 @@ namespace HybridRL.Models;
 /// <summary>
 /// The layered variational circuit of a hybrid model, built from <see cref="CircuitSettings"/>.
 /// <para>
-/// Layer ℓ = 0..L-1: (if ℓ = 0 or re-uploading) the encoding of every input feature, each as a rotation
+/// Layer ℓ = 0..L-1: (if ℓ = 0 or re-uploading; basis encoding only at ℓ = 0, as fixed RX(π·bit)) the encoding of every input feature, each as a rotation
 /// whose angle is s·squash(x) with s a trainable scale (or the constant 1); then, for each qubit in order,
 /// one trainable rotation per configured axis; then the entangler. Parameters are numbered in the order
 /// they are created: per layer, first the encoding scales (feature order), then the rotations (qubit-major,
@@ -42,6 +42,11 @@ public sealed class ModelCircuit
             throw new ModelConfigurationException($"model.circuit.qubits = {s.Qubits} is outside 1..{Circuit.MaxQubits}", "model.circuit.qubits");
         if (s.Layers < 1) throw new ModelConfigurationException($"model.circuit.layers = {s.Layers} must be at least 1", "model.circuit.layers");
         int capacity = Capacity(s.Encoding, s.Qubits);
+        if (s.Encoding == EncodingKind.Basis && features > capacity)
+            throw new ModelConfigurationException(
+                $"basis encoding takes one bit per qubit: {features} input features do not fit {s.Qubits} qubits; " +
+                "give the environment a binary observation of its state index (e.g. observation: binary) or raise model.circuit.qubits",
+                "model.circuit.encoding", "model.circuit.qubits");
         if (features > capacity)
             throw new ModelConfigurationException(
                 $"{features} features do not fit a {s.Encoding} encoding on {s.Qubits} qubits (it holds {capacity}); " +
@@ -64,7 +69,12 @@ public sealed class ModelCircuit
         }
         for (int layer = 0; layer < s.Layers; layer++)
         {
-            if (layer == 0 || s.Reupload)
+            if (s.Encoding == EncodingKind.Basis)
+            {
+                if (layer == 0)
+                    for (int q = 0; q < features; q++) b.RX(q, Angle.Input(q, Math.PI));
+            }
+            else if (layer == 0 || s.Reupload)
             {
                 for (int q = 0; q < s.Qubits; q++)
                 {
