@@ -24,7 +24,7 @@ public static class BenchmarkSuite
 
     private static IReadOnlyDictionary<string, double> Training(bool quick)
     {
-        var result = new SortedDictionary<string, double>(StringComparer.Ordinal);
+        var result = new SortedDictionary<string, double>(HybridRL.Training.TrainingBenchmark.Run(quick), StringComparer.Ordinal);
         foreach (var (k, v) in CheckpointBenchmark.Run(quick ? 1 : 5).ToMetrics()) result[k] = v;
         return result;
     }

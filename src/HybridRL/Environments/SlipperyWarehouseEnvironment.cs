@@ -79,24 +79,35 @@ public sealed class SlipperyWarehouseEnvironment : IEnvironment
     public void WriteObservation(Span<double> observation)
     {
         if (_state < 0) throw new InvalidOperationException($"{Name}: call Reset first");
+        WriteObservationOf(_state, observation);
+    }
+
+    /// <summary>
+    /// Writes the observation the agent would see in tabular state <paramref name="state"/> (the state numbering of
+    /// <see cref="ToTabularModel"/>), without changing the episode. Used to read a greedy policy table off a model.
+    /// </summary>
+    public void WriteObservationOf(int state, Span<double> observation)
+    {
+        if ((uint)state >= (uint)_map.StateCount)
+            throw new ArgumentOutOfRangeException(nameof(state), state, $"{Name}: states are 0..{_map.StateCount - 1}");
         StateFormat.CheckBuffer(observation, ObservationSize, Name);
         var o = observation[..ObservationSize];
         switch (_settings.Observation)
         {
             case GridObservation.OneHot:
                 o.Clear();
-                o[_state] = 1;
+                o[state] = 1;
                 break;
             case GridObservation.Binary:
                 // Most significant bit first.
-                for (int i = 0; i < _bits; i++) o[i] = (_state >> (_bits - 1 - i)) & 1;
+                for (int i = 0; i < _bits; i++) o[i] = (state >> (_bits - 1 - i)) & 1;
                 break;
             case GridObservation.Index:
                 o[0] = _state;
                 break;
             default:
-                o[0] = _map.Height > 1 ? _map.RowOf(_state) / (double)(_map.Height - 1) : 0;
-                o[1] = _map.Width > 1 ? _map.ColumnOf(_state) / (double)(_map.Width - 1) : 0;
+                o[0] = _map.Height > 1 ? _map.RowOf(state) / (double)(_map.Height - 1) : 0;
+                o[1] = _map.Width > 1 ? _map.ColumnOf(state) / (double)(_map.Width - 1) : 0;
                 break;
         }
     }

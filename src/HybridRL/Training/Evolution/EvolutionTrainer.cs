@@ -53,7 +53,7 @@ public sealed class EvolutionTrainer : ITrainer
         models.Add(_evalModel);
         if (_evalModel.ParameterCount != strategy.Dimension)
             throw new ArgumentException($"search dimension {strategy.Dimension} does not match the model's {_evalModel.ParameterCount} parameters");
-        _evaluator = settings.EvalEpisodes > 0 ? new GreedyEvaluator(environmentFactory(), settings.EvalEpisodes, rootSeed) : null;
+        _evaluator = settings.EvalEpisodes > 0 && settings.EvalEvery > 0 ? new GreedyEvaluator(environmentFactory(), settings.EvalEpisodes, rootSeed) : null;
         _tally = new ExecutionTally(models.ToArray());
         _population = new double[lambda * strategy.Dimension];
         _fitness = new double[lambda];
@@ -93,7 +93,8 @@ public sealed class EvolutionTrainer : ITrainer
         Summarise();
         _strategy.Tell(_fitness);
 
-        if (_evaluator is not null)
+        // Greedy evaluation of the centre every EvalEvery generations (the config's eval_every), not every generation.
+        if (_evaluator is not null && Counters.Generations % _s.EvalEvery == 0)
         {
             _strategy.Center.CopyTo(_center);
             _evalModel.SetFlat(_center);
