@@ -17,6 +17,7 @@ public static class BenchmarkSuite
         TorchRuntime.EnsureLoaded();
         return group switch
         {
+            "model" => new SortedDictionary<string, double>(Models.ModelBenchmark.Run(quick), StringComparer.Ordinal),
             "training" => Training(quick),
             _ => throw new ArgumentException($"unknown benchmark group '{group}'; one of: {string.Join(", ", Groups)}", nameof(group)),
         };
@@ -24,7 +25,7 @@ public static class BenchmarkSuite
 
     private static IReadOnlyDictionary<string, double> Training(bool quick)
     {
-        var result = new SortedDictionary<string, double>(HybridRL.Training.TrainingBenchmark.Run(quick), StringComparer.Ordinal);
+        var result = new SortedDictionary<string, double>(HybridRL.Training.TrainingBenchmark.Run(quick).ToDictionary(), StringComparer.Ordinal);
         foreach (var (k, v) in CheckpointBenchmark.Run(quick ? 1 : 5).ToMetrics()) result[k] = v;
         return result;
     }
