@@ -9,6 +9,8 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
     public ExactStateVectorEvaluator(Circuit circuit, IReadOnlyList<Observable> observables, SimulationOptions options, GradientMethod method)
         : base(circuit, observables, options, method) { }
 
+    private const int RunLimit = 16;
+
     public override SimulationMode Mode => SimulationMode.StateVector;
     protected override int StateBits => Qubits;
     protected override bool NeedsAdjointBuffers => GradientMethod == GradientMethod.Adjoint;
@@ -52,10 +54,32 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
         var diff = C.SlotDifferentiable;
         int n = Qubits;
         bool big = n >= StateKernels.ParallelBits && kt > 1;
+        Span<char> modes = stackalloc char[RunLimit];
+        Span<Mat2> invs = stackalloc Mat2[RunLimit];
+        Span<double> acc = stackalloc double[RunLimit];
         for (int i = prims.Length - 1; i >= 0; i--)
         {
             ref readonly var p = ref prims[i];
             double t = p.Slot >= 0 ? theta[p.Slot] : 0;
+            if (!big && p.IsSingleQubit)
+            {
+                // Maximal run of single-qubit primitives on this qubit, processed pair-locally in one pass.
+                int j = i;
+                while (j - 1 >= 0 && i - (j - 1) < RunLimit && prims[j - 1].IsSingleQubit && prims[j - 1].Q0 == p.Q0) j--;
+                int count = i - j + 1;
+                for (int e = 0; e < count; e++)
+                {
+                    ref readonly var pe = ref prims[i - e];
+                    bool d = pe.Slot >= 0 && diff[pe.Slot];
+                    modes[e] = !d ? 'N' : pe.Kind == PrimitiveKind.Phase ? 'P' : pe.Generator;
+                    invs[e] = pe.Kind == PrimitiveKind.Fixed1 ? pe.Fixed.Adjoint() : pe.Matrix(-theta[pe.Slot]);
+                }
+                AdjointKernels.StepRun(re, im, lr, li, n, p.Q0, modes[..count], invs[..count], acc);
+                for (int e = 0; e < count; e++)
+                    if (modes[e] != 'N') gTheta[prims[i - e].Slot] += acc[e];
+                i = j;
+                continue;
+            }
             if (p.Slot >= 0 && diff[p.Slot] && !big)
             {
                 // Single fused pass: derivative term, then undo on ψ and λ.

@@ -38,9 +38,11 @@ internal static unsafe class StateKernels
         long pairs = 1L << (bits - 1);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) Apply1Range(r, i, q, m, 0, pairs); return; }
-        var mm = m;
-        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) Apply1Range(r, i, q, mm, a, b); });
+        Apply1Parallel(re, im, q, m, pairs, parts);
     }
+
+    private static void Apply1Parallel(double[] re, double[] im, int q, Mat2 m, long pairs, int parts) =>
+        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) Apply1Range(r, i, q, m, a, b); });
 
     private static void Apply1Range(double* re, double* im, int q, in Mat2 m, long k0, long k1)
     {
@@ -117,8 +119,11 @@ internal static unsafe class StateKernels
         long pairs = 1L << (bits - 1);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, 0, pairs); return; }
-        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, a, b); });
+        DiagParallel(re, im, q, d0r, d0i, d1r, d1i, skip0, skip1, pairs, parts);
     }
+
+    private static void DiagParallel(double[] re, double[] im, int q, double d0r, double d0i, double d1r, double d1i, bool skip0, bool skip1, long pairs, int parts) =>
+        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, a, b); });
 
     private static void DiagRange(double* re, double* im, int q, double d0r, double d0i, double d1r, double d1i, bool skip0, bool skip1, long k0, long k1)
     {
@@ -165,9 +170,11 @@ internal static unsafe class StateKernels
         long quads = 1L << (bits - 2);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, m, 0, quads); return; }
-        var mm = m;
-        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, mm, a, b); });
+        ControlledParallel(re, im, control, target, m, quads, parts);
     }
+
+    private static void ControlledParallel(double[] re, double[] im, int control, int target, Mat2 m, long quads, int parts) =>
+        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, m, a, b); });
 
     private static void ControlledRange(double* re, double* im, int c, int t, in Mat2 m, long k0, long k1)
     {
@@ -190,8 +197,11 @@ internal static unsafe class StateKernels
         long quads = 1L << (bits - 2);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) CnotRange(r, i, control, target, 0, quads); return; }
-        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) CnotRange(r, i, control, target, a, b); });
+        CnotParallel(re, im, control, target, quads, parts);
     }
+
+    private static void CnotParallel(double[] re, double[] im, int control, int target, long quads, int parts) =>
+        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) CnotRange(r, i, control, target, a, b); });
 
     private static void CnotRange(double* re, double* im, int c, int t, long k0, long k1)
     {
@@ -210,8 +220,11 @@ internal static unsafe class StateKernels
         long quads = 1L << (bits - 2);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) CzRange(r, i, a, b, 0, quads); return; }
-        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) CzRange(r, i, a, b, x, y); });
+        CzParallel(re, im, a, b, quads, parts);
     }
+
+    private static void CzParallel(double[] re, double[] im, int a, int b, long quads, int parts) =>
+        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) CzRange(r, i, a, b, x, y); });
 
     private static void CzRange(double* re, double* im, int a, int b, long k0, long k1)
     {
@@ -230,8 +243,11 @@ internal static unsafe class StateKernels
         long quads = 1L << (bits - 2);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) SwapRange(r, i, a, b, 0, quads); return; }
-        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) SwapRange(r, i, a, b, x, y); });
+        SwapParallel(re, im, a, b, quads, parts);
     }
+
+    private static void SwapParallel(double[] re, double[] im, int a, int b, long quads, int parts) =>
+        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) SwapRange(r, i, a, b, x, y); });
 
     private static void SwapRange(double* re, double* im, int a, int b, long k0, long k1)
     {
