@@ -1,1 +1,0 @@
-namespace HybridRL; internal static class AssemblyMarker {}

@@ -1,0 +1,33 @@
+namespace HybridRL.Environments;
+
+/// <summary>Rewards of a grid task: every step costs <see cref="StepCost"/>; entering a goal adds <see cref="GoalReward"/>, entering a hole adds <see cref="HoleReward"/> (usually negative).</summary>
+public readonly record struct GridRewards(double StepCost, double GoalReward, double HoleReward)
+{
+    /// <summary>Reward for a step that ends in <paramref name="arrived"/>.</summary>
+    public double For(GridCell arrived) => -StepCost + arrived switch
+    {
+        GridCell.Goal => GoalReward,
+        GridCell.Hole => HoleReward,
+        _ => 0,
+    };
+
+    /// <summary>Builds the exact tabular model of a grid task with the Russell &amp; Norvig slip model (<see cref="GridMoves"/>). Goals and holes are terminal; the start distribution is uniform over start cells.</summary>
+    public TabularModel BuildModel(GridMap map, double slip)
+    {
+        var b = new TabularModelBuilder(map.StateCount, GridMoves.ActionCount);
+        for (int s = 0; s < map.StateCount; s++)
+        {
+            var cell = map.CellOfState(s);
+            if (cell == GridCell.Start) b.SetStartProbability(s, 1.0 / map.StartCount);
+            if (cell is GridCell.Goal or GridCell.Hole) { b.SetTerminal(s); continue; }
+            for (int a = 0; a < GridMoves.ActionCount; a++)
+                for (int o = 0; o < 3; o++)
+                {
+                    double p = GridMoves.OutcomeProbability(o, slip);
+                    int next = GridMoves.Move(map, s, GridMoves.Direction(a, o));
+                    b.AddTransition(s, a, next, p, For(map.CellOfState(next)));
+                }
+        }
+        return b.Build();
+    }
+}

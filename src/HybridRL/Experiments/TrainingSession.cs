@@ -1,0 +1,236 @@
+using System.Text.Json;
+using HybridRL.Analysis.Ledger;
+using HybridRL.Checkpoints;
+using HybridRL.Experiments.Config;
+using HybridRL.Experiments.Runs;
+using HybridRL.Logging;
+using HybridRL.Native;
+using HybridRL.Training;
+using Serilog;
+
+namespace HybridRL.Experiments;
+
+/// <summary>
+/// One training run in its run folder, from start or from its newest valid checkpoint to the end
+/// of its budget: lock, resolved config, metrics.csv, JSON log, checkpoints, progress, signals,
+/// final greedy evaluation and summary.json.
+/// </summary>
+public sealed class TrainingSession
+{
+    private readonly ExperimentSpec _spec;
+    private readonly RunFolder _folder;
+    private readonly string _runId;
+    private readonly string _name;
+    private readonly Verbosity _verbosity;
+    private readonly TextWriter _out;
+
+    private TrainingSession(ExperimentSpec spec, RunFolder folder, string name, string runId, Verbosity verbosity, TextWriter output)
+    {
+        _spec = spec;
+        _folder = folder;
+        _name = name;
+        _runId = runId;
+        _verbosity = verbosity;
+        _out = output;
+    }
+
+    /// <summary>The run folder this session writes.</summary>
+    public RunFolder Folder => _folder;
+
+    /// <summary>
+    /// Prepares a run of <paramref name="spec"/> under <c>runsDir/name/runId</c> (run id from the spec hash
+    /// unless given). Builds the components once first, so a config that cannot work fails before any file is created.
+    /// </summary>
+    public static TrainingSession Create(ExperimentSpec spec, string runsDir, string? name, string? runId, Verbosity verbosity, TextWriter output)
+    {
+        TorchRuntime.EnsureLoaded();
+        using (ExperimentComponents.Validate(spec)) { }
+        string runName = name ?? spec.Experiment.Name;
+        string id = runId ?? RunId.Create(runName, spec.Hash());
+        return new TrainingSession(spec, RunFolder.For(runsDir, runName, id), runName, id, verbosity, output);
+    }
+
+    /// <summary>A session that continues the run in <paramref name="runDir"/>, optionally with safe config changes.</summary>
+    public static TrainingSession ForExisting(string runDir, IReadOnlyList<string> setOverrides, Verbosity verbosity, TextWriter output)
+    {
+        TorchRuntime.EnsureLoaded();
+        var folder = new RunFolder(Path.GetFullPath(runDir));
+        if (!File.Exists(folder.ConfigPath))
+            throw new ConfigException([new ConfigError("run", folder.Root, null, $"'{folder.Root}' is not a run folder: it has no config.yaml")]);
+        var saved = ExperimentSpecLoader.Load([folder.ConfigPath], [], new Dictionary<string, string>());
+        var spec = setOverrides.Count == 0 ? saved : ExperimentSpecLoader.Load([folder.ConfigPath], setOverrides, new Dictionary<string, string>());
+        var diff = SpecDiff.Compare(saved, spec);
+        if (!diff.IsSafeForResume)
+        {
+            var keys = string.Join(", ", diff.UnsafeDifferences.Select(d => $"{d.Key} ({d.Before} → {d.After})"));
+            throw new ConfigException([new ConfigError("--set", null, null, $"cannot resume with a changed config: {keys}; only budgets, logging and similar keys may change on resume — start a new run instead")]);
+        }
+        string runId = Path.GetFileName(folder.Root);
+        string name = Path.GetFileName(Path.GetDirectoryName(folder.Root)!) ?? spec.Experiment.Name;
+        using (ExperimentComponents.Validate(spec)) { }
+        return new TrainingSession(spec, folder, name, runId, verbosity, output);
+    }
+
+    /// <summary>Runs to the end of the budget (or a signal). Returns the process exit code.</summary>
+    public int Run(CancellationToken cancel)
+    {
+        _out.WriteLine(_folder.Root);
+        if (File.Exists(_folder.SummaryPath) && RunStatus.Detect(_folder).State == RunState.Done)
+        {
+            _out.WriteLine($"run already finished; its summary is {_folder.SummaryPath}");
+            return ExitCodes.Done;
+        }
+
+        _folder.EnsureCreated();
+        using var runLock = RunLock.Acquire(_folder);
+        using var log = LogSetup.CreateForRun(_verbosity, _folder.LogPath);
+        if (runLock.TakeoverNote is not null) log.Warning("{Note}", runLock.TakeoverNote);
+        if (File.Exists(_folder.FailedPath)) File.Delete(_folder.FailedPath);
+        AtomicFile.WriteAllText(_folder.ConfigPath, _spec.ToAnnotatedYaml());
+
+        using var components = ExperimentComponents.Build(_spec);
+        var trainer = components.Trainer;
+        byte[]? loopState = null;
+
+        MetricsCsvWriter metrics;
+        var newest = CheckpointStore.OpenNewestValid(_folder.CheckpointsDir, out var rejected);
+        foreach (var reason in rejected) log.Warning("skipped checkpoint: {Reason}", reason);
+        if (newest is not null)
+        {
+            using (newest)
+            {
+                trainer.Load(name => newest.GetSection(name));
+                loopState = newest.ReadSectionBytes("loop").ToArray();
+                log.Information("resumed from {Checkpoint} at step {Step}", newest.FilePath, trainer.Counters.EnvSteps);
+            }
+            metrics = File.Exists(_folder.MetricsPath)
+                ? MetricsCsvWriter.OpenForResume(_folder.MetricsPath, trainer.Counters.MetricsRows)
+                : throw new InvalidDataException($"{_folder.MetricsPath} is missing but checkpoints exist; cannot resume without duplicating or losing metrics rows");
+        }
+        else
+        {
+            metrics = MetricsCsvWriter.Create(_folder.MetricsPath);
+            log.Information("started run {RunId}: {Trainer} on {Environment}, {Parameters} parameters", _runId, trainer.Kind, _spec.Environment.Kind, trainer.ParameterCount);
+        }
+
+        using (metrics)
+        {
+            var progress = ProgressReporter.ForConsole(_spec.Logging.ProgressSeconds, _verbosity == Verbosity.Quiet);
+            var sink = new RunFolderSink(this, metrics, runLock, log, progress);
+            var loop = new TrainingLoop(trainer, components.Budget, new TrainingSchedule(_spec.Logging.MetricsEverySteps, _spec.Logging.CheckpointEverySteps), sink);
+            if (loopState is not null) loop.LoadState(new BinaryReader(new MemoryStream(loopState)));
+            TrainingOutcome outcome;
+            try
+            {
+                outcome = loop.Run(cancel);
+            }
+            catch (DivergenceException ex)
+            {
+                progress.Finish();
+                log.Error("{Message}", ex.Message);
+                WriteFailed(ex.Message);
+                return ExitCodes.Failure;
+            }
+            progress.Finish();
+            if (outcome == TrainingOutcome.Interrupted)
+            {
+                log.Warning("interrupted at step {Step}; checkpoint written; continue with: hybridrl resume {Dir}", trainer.Counters.EnvSteps, _folder.Root);
+                return ExitCodes.Interrupted;
+            }
+            var summary = Summarise(components, sink.BestEvaluation);
+            AtomicFile.WriteAllText(_folder.SummaryPath, summary.ToJson());
+            log.Information("finished: final greedy return {Final} over {Episodes} episodes; best evaluation {Best}; {Steps} steps in {Seconds:0.0} s",
+                summary.FinalReturn, summary.FinalEvalEpisodes, summary.BestReturn, summary.EnvSteps, summary.WallSeconds);
+            _out.WriteLine($"summary: {_folder.SummaryPath}");
+            return ExitCodes.Done;
+        }
+    }
+
+    private RunSummary Summarise(ExperimentComponents components, double? bestEvaluation)
+    {
+        var trainer = components.Trainer;
+        int finalEpisodes = _spec.Logging.FinalEvalEpisodes;
+        double? final = finalEpisodes > 0 ? components.EvaluateFinal(finalEpisodes) : trainer.LatestEvaluation;
+        var c = trainer.Counters;
+        double shotsPerExecution = ShotsPerExecution(_spec);
+        var ledger = new Dictionary<string, object?>
+        {
+            ["circuit_executions"] = c.CircuitExecutions,
+            ["shots"] = c.Shots,
+            ["hardware_executions"] = c.HardwareExecutions,
+            ["shots_per_execution"] = shotsPerExecution,
+            ["hardware_shots"] = c.HardwareExecutions * shotsPerExecution,
+        };
+        if (_spec.Hardware is { } hw)
+        {
+            var profile = new HardwareProfile(hw.Name, hw.Note, hw.SecondsPerShot, hw.PerCircuitOverheadSeconds, hw.CircuitsPerJob, hw.QueueLatencySeconds, hw.PricePerShot);
+            var estimate = new HardwareLedger(c.CircuitExecutions, c.Shots, c.HardwareExecutions, shotsPerExecution).Estimate(profile);
+            ledger["profile"] = hw.Name;
+            ledger["estimated_device_seconds"] = estimate.ShotSeconds + estimate.OverheadSeconds + estimate.QueueSeconds;
+            ledger["estimated_cost"] = estimate.Cost;
+            ledger["note"] = HardwareLedger.Disclaimer;
+        }
+        return new RunSummary
+        {
+            RunId = _runId,
+            Name = _name,
+            Trainer = trainer.Kind,
+            StoppedBy = components.Budget.ReachedBy(c),
+            FinalReturn = final,
+            FinalEvalEpisodes = finalEpisodes,
+            BestReturn = Max(bestEvaluation, final),
+            EnvSteps = c.EnvSteps,
+            Episodes = c.Episodes,
+            Updates = c.Updates,
+            Generations = c.Generations,
+            CircuitExecutions = c.CircuitExecutions,
+            Shots = c.Shots,
+            HardwareExecutions = c.HardwareExecutions,
+            WallSeconds = c.WallSeconds,
+            ParameterCount = trainer.ParameterCount,
+            ParameterCounts = components.ParameterCounts,
+            ConfigHash = _spec.Hash(),
+            Ledger = ledger,
+        };
+    }
+
+    /// <summary>
+    /// Shots a device would spend per circuit execution: the configured shot count, or 1000 when the
+    /// simulation is exact (common practice for estimating an expectation to about ±0.03).
+    /// </summary>
+    public static double ShotsPerExecution(ExperimentSpec spec) =>
+        spec.Model.Simulation is { Shots: > 0 } sim ? sim.Shots : 1000;
+
+    private static double? Max(double? a, double? b) => a is null ? b : b is null ? a : Math.Max(a.Value, b.Value);
+
+    private void WriteFailed(string message) =>
+        AtomicFile.WriteAllText(_folder.FailedPath, JsonSerializer.Serialize(new Dictionary<string, object> { ["status"] = "failed", ["message"] = message, ["time"] = DateTime.UtcNow.ToString("O") }, RunSummary.Json));
+
+    /// <summary>Writes metrics rows and checkpoints into the run folder.</summary>
+    private sealed class RunFolderSink(TrainingSession session, MetricsCsvWriter metrics, RunLock runLock, ILogger log, ProgressReporter progress) : ITrainingSink
+    {
+        public double? BestEvaluation { get; private set; }
+
+        public void OnMetrics(MetricsRow row, long rowIndex)
+        {
+            metrics.Append(row);
+            log.Debug("metrics {@Row}", row);
+            if (row.EvalReturn is double e && (BestEvaluation is null || e > BestEvaluation)) BestEvaluation = e;
+        }
+
+        public void OnCheckpoint(ITrainer trainer, Action<BinaryWriter> loop, double? score)
+        {
+            metrics.FlushToDisk();
+            var writer = new CheckpointWriter();
+            trainer.Save((name, write) => writer.AddSection(name, write));
+            writer.AddSection("loop", loop);
+            writer.AddSection("config", w => w.Write(session._spec.ToYaml()));
+            var header = new CheckpointHeader { TrainerKind = trainer.Kind, ConfigHash = session._spec.Hash(), Step = trainer.Counters.EnvSteps };
+            string path = writer.Save(session._folder.CheckpointsDir, trainer.Counters.EnvSteps, header, score, session._spec.Logging.KeepCheckpoints);
+            runLock.Touch();
+            log.Debug("checkpoint {Path}", path);
+        }
+
+        public void OnProgress(ITrainer trainer, double fraction) => progress.Update(trainer, fraction);
+    }
+}

@@ -1,0 +1,247 @@
+using HybridRL.Environments;
+using HybridRL.Models;
+using HybridRL.Quantum.Randomness;
+using HybridRL.Training.DeepQ;
+
+namespace HybridRL.Training.Evolution;
+
+/// <summary>
+/// Evolutionary training of any agent model: one unit = one generation. Members are evaluated
+/// greedily on common episode seeds, in parallel slices over cores through the model's
+/// population forward path (all members of a slice step their episodes in lock-step, one batched
+/// circuit evaluation per time step). Each member's fitness lands in its own slot, so results
+/// are independent of the number of threads.
+/// </summary>
+public sealed class EvolutionTrainer : ITrainer
+{
+    private readonly string _kind;
+    private readonly IEvolutionStrategy _strategy;
+    private readonly EvolutionTrainerSettings _s;
+    private readonly ulong _rootSeed;
+    private readonly Slice[] _slices;
+    private readonly IAgentModel _evalModel;
+    private readonly GreedyEvaluator? _evaluator;
+    private readonly ExecutionTally _tally;
+    private readonly double[] _population;
+    private readonly double[] _fitness;
+    private readonly long[] _memberSteps;
+    private readonly ulong[] _episodeSeeds;
+    private readonly double[] _center;
+    private readonly ReturnWindow _returns;
+    private double? _lastEval;
+    private double _fitMean, _fitBest, _fitStd;
+    private bool _hasFitness;
+
+    public EvolutionTrainer(string kind, IEvolutionStrategy strategy, EvolutionTrainerSettings settings,
+        Func<IEnvironment> environmentFactory, Func<IAgentModel> modelFactory, ulong rootSeed)
+    {
+        _kind = kind;
+        _strategy = strategy;
+        _s = settings;
+        _rootSeed = rootSeed;
+        int lambda = strategy.PopulationSize;
+        int workers = Math.Clamp(settings.EffectiveWorkers, 1, lambda);
+        _slices = new Slice[workers];
+        var models = new List<IAgentModel>();
+        for (int w = 0; w < workers; w++)
+        {
+            int start = (int)((long)lambda * w / workers), end = (int)((long)lambda * (w + 1) / workers);
+            _slices[w] = new Slice(start, end - start, environmentFactory, modelFactory());
+            models.Add(_slices[w].Model);
+        }
+        _evalModel = modelFactory();
+        models.Add(_evalModel);
+        if (_evalModel.ParameterCount != strategy.Dimension)
+            throw new ArgumentException($"search dimension {strategy.Dimension} does not match the model's {_evalModel.ParameterCount} parameters");
+        _evaluator = settings.EvalEpisodes > 0 ? new GreedyEvaluator(environmentFactory(), settings.EvalEpisodes, rootSeed) : null;
+        _tally = new ExecutionTally(models.ToArray());
+        _population = new double[lambda * strategy.Dimension];
+        _fitness = new double[lambda];
+        _memberSteps = new long[lambda];
+        _episodeSeeds = new ulong[Math.Max(1, settings.EpisodesPerMember)];
+        _center = new double[strategy.Dimension];
+        _returns = new ReturnWindow(Math.Max(1, lambda));
+    }
+
+    public string Kind => _kind;
+    public TrainingCounters Counters { get; } = new();
+    public long ParameterCount => _strategy.Dimension;
+    public double? LatestEvaluation => _lastEval;
+
+    public void RunUnit(TrainingBudget budget)
+    {
+        int lambda = _strategy.PopulationSize, n = _strategy.Dimension;
+        _strategy.Ask(_population);
+        long g = Counters.Generations;
+        for (int e = 0; e < _episodeSeeds.Length; e++) _episodeSeeds[e] = RandomStream.SeedFor(_rootSeed, "generation-episodes", g * _episodeSeeds.Length + e);
+
+        Array.Clear(_fitness);
+        Array.Clear(_memberSteps);
+        if (_slices.Length == 1) _slices[0].Evaluate(_population, n, _episodeSeeds, _fitness, _memberSteps);
+        else Parallel.For(0, _slices.Length, new ParallelOptions { MaxDegreeOfParallelism = _slices.Length },
+            w => _slices[w].Evaluate(_population, n, _episodeSeeds, _fitness, _memberSteps));
+
+        long steps = 0;
+        for (int i = 0; i < lambda; i++)
+        {
+            steps += _memberSteps[i];
+            _returns.Add(_fitness[i]);
+        }
+        Counters.EnvSteps += steps;
+        Counters.Episodes += (long)lambda * _episodeSeeds.Length;
+        Counters.Generations++;
+        Summarise();
+        _strategy.Tell(_fitness);
+
+        if (_evaluator is not null)
+        {
+            _strategy.Center.CopyTo(_center);
+            _evalModel.SetFlat(_center);
+            _lastEval = _evaluator.Evaluate(_evalModel, out long evalSteps);
+        }
+        _tally.Apply(Counters);
+    }
+
+    private void Summarise()
+    {
+        double sum = 0, best = double.NegativeInfinity;
+        foreach (var f in _fitness)
+        {
+            sum += f;
+            if (f > best) best = f;
+        }
+        double mean = sum / _fitness.Length, ss = 0;
+        foreach (var f in _fitness) ss += (f - mean) * (f - mean);
+        _fitMean = mean;
+        _fitBest = best;
+        _fitStd = Math.Sqrt(ss / _fitness.Length);
+        _hasFitness = true;
+    }
+
+    public MetricsRow Metrics(MetricsRow row) => row with
+    {
+        TrainReturn = _returns.Mean(),
+        EvalReturn = _lastEval,
+        FitnessMean = _hasFitness ? _fitMean : null,
+        FitnessBest = _hasFitness ? _fitBest : null,
+        FitnessStd = _hasFitness ? _fitStd : null,
+        Sigma = _strategy.StepSize,
+    };
+
+    public double[] AgentParameters() => _strategy.Center.ToArray();
+
+    public void CheckFinite()
+    {
+        if (_hasFitness && !double.IsFinite(_fitMean)) throw new DivergenceException("the fitness", Counters.EnvSteps);
+        foreach (var v in _strategy.Center)
+            if (!double.IsFinite(v)) throw new DivergenceException("a parameter of the search distribution", Counters.EnvSteps);
+        if (!double.IsFinite(_strategy.StepSize)) throw new DivergenceException("the step size σ", Counters.EnvSteps);
+    }
+
+    public void Save(Action<string, Action<BinaryWriter>> addSection)
+    {
+        addSection("counters", Counters.Save);
+        addSection("model.center", w => DeepQTrainer.WriteDoubles(w, _strategy.Center));
+        addSection("search", _strategy.Save);
+        addSection("trainer", w =>
+        {
+            w.Write(_lastEval.HasValue);
+            w.Write(_lastEval ?? 0);
+            w.Write(_hasFitness);
+            w.Write(_fitMean);
+            w.Write(_fitBest);
+            w.Write(_fitStd);
+            _returns.Save(w);
+        });
+    }
+
+    public void Load(Func<string, BinaryReader> section)
+    {
+        Counters.Load(section("counters"));
+        _strategy.Load(section("search"));
+        var t = section("trainer");
+        bool hasEval = t.ReadBoolean();
+        double eval = t.ReadDouble();
+        _lastEval = hasEval ? eval : null;
+        _hasFitness = t.ReadBoolean();
+        _fitMean = t.ReadDouble();
+        _fitBest = t.ReadDouble();
+        _fitStd = t.ReadDouble();
+        _returns.Load(t);
+        _tally.Resync();
+    }
+
+    public void Dispose()
+    {
+        foreach (var s in _slices) (s.Model as IDisposable)?.Dispose();
+        (_evalModel as IDisposable)?.Dispose();
+    }
+
+    /// <summary>A contiguous range of members evaluated by one worker, with its own model and environment copies.</summary>
+    private sealed class Slice
+    {
+        private readonly int _start, _count;
+        private readonly IEnvironment[] _envs;
+        private readonly int[] _active;
+        private readonly double[] _obs, _params, _q, _returns;
+        private readonly int _obsSize, _actions;
+
+        public Slice(int start, int count, Func<IEnvironment> envFactory, IAgentModel model)
+        {
+            _start = start;
+            _count = count;
+            Model = model;
+            _envs = new IEnvironment[count];
+            for (int i = 0; i < count; i++) _envs[i] = envFactory();
+            _obsSize = _envs.Length > 0 ? _envs[0].ObservationSize : 0;
+            _actions = model.OutputCount;
+            _active = new int[count];
+            _obs = new double[count * _obsSize];
+            _params = new double[count * model.ParameterCount];
+            _q = new double[count * _actions];
+            _returns = new double[count];
+        }
+
+        public IAgentModel Model { get; }
+
+        public void Evaluate(double[] population, int dim, ulong[] seeds, double[] fitness, long[] steps)
+        {
+            if (_count == 0) return;
+            foreach (var seed in seeds)
+            {
+                int active = _count;
+                for (int i = 0; i < _count; i++)
+                {
+                    _active[i] = i;
+                    _returns[i] = 0;
+                    _envs[i].Reset(seed, _obs.AsSpan(i * _obsSize, _obsSize));
+                }
+                while (active > 0)
+                {
+                    // Row k of the observation buffer always holds member _active[k] (kept by the compaction below);
+                    // gather the matching parameter rows.
+                    for (int k = 0; k < active; k++)
+                    {
+                        int i = _active[k];
+                        population.AsSpan((_start + i) * dim, dim).CopyTo(_params.AsSpan(k * dim, dim));
+                    }
+                    Model.PopulationForward(_params.AsSpan(0, active * dim), _obs.AsSpan(0, active * _obsSize), active, _q.AsSpan(0, active * _actions));
+                    int stillActive = 0;
+                    for (int k = 0; k < active; k++)
+                    {
+                        int i = _active[k];
+                        int a = BellmanTargets.ArgMax(_q.AsSpan(k * _actions, _actions));
+                        var r = _envs[i].Step(a, _obs.AsSpan(k * _obsSize, _obsSize));
+                        steps[_start + i]++;
+                        _returns[i] += r.Reward;
+                        if (r.Terminal || r.Truncated) continue;
+                        if (stillActive != k) _obs.AsSpan(k * _obsSize, _obsSize).CopyTo(_obs.AsSpan(stillActive * _obsSize, _obsSize));
+                        _active[stillActive++] = i;
+                    }
+                    active = stillActive;
+                }
+                for (int i = 0; i < _count; i++) fitness[_start + i] += _returns[i] / seeds.Length;
+            }
+        }
+    }
+}
