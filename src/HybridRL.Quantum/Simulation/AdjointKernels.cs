@@ -60,6 +60,7 @@ internal static unsafe class AdjointKernels
         _ => Run<PTerm>(psiRe, psiIm, lamRe, lamIm, bits, q, controlMask, inv, undo),
     };
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static double Run<T>(double[] psiRe, double[] psiIm, double[] lamRe, double[] lamIm, int bits, int q, long controlMask, in Mat2 inv, bool undo) where T : struct, ITerm
     {
         long stride = 1L << q, dim = 1L << bits;
@@ -94,6 +95,7 @@ internal static unsafe class AdjointKernels
     /// is closed under gates on that qubit). Entries are in backward order: entry 0 is the latest gate. For each
     /// entry the derivative term (modes 'X', 'Y', 'Z', 'P'; 'N' for none) is added to acc[e], then U†_e is applied to ψ and λ.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void StepRun(double[] psiRe, double[] psiIm, double[] lamRe, double[] lamIm, int bits, int q, ReadOnlySpan<char> modes, ReadOnlySpan<Mat2> invs, Span<double> acc)
     {
         long stride = 1L << q, dim = 1L << bits;
@@ -143,6 +145,7 @@ internal static unsafe class AdjointKernels
     }
 
     /// <summary>Vector256 version of <see cref="StepRun"/> for strides of at least 4 (four pairs per step; lanes summed in a fixed order).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void StepRunVector(double* pr, double* pi, double* lr, double* li, long dim, long stride, int count, char* md, Mat2* inv, double* ac)
     {
         Span<Vector256<double>> vacc = stackalloc Vector256<double>[16];
@@ -165,6 +168,29 @@ internal static unsafe class AdjointKernels
                         case 'P': vacc[e] += Vector256.Create(-2.0) * (l1r * p1i - l1i * p1r); break;
                     }
                     ref readonly Mat2 m = ref inv[e];
+                    if (m.IsDiagonal)
+                    {
+                        // diag(a, d): four real products per amplitude pair and state
+                        var ar = Vector256.Create(m.Ar); var ai = Vector256.Create(m.Ai);
+                        var dr = Vector256.Create(m.Dr); var di = Vector256.Create(m.Di);
+                        (p0r, p0i) = (ar * p0r - ai * p0i, ar * p0i + ai * p0r);
+                        (p1r, p1i) = (dr * p1r - di * p1i, dr * p1i + di * p1r);
+                        (l0r, l0i) = (ar * l0r - ai * l0i, ar * l0i + ai * l0r);
+                        (l1r, l1i) = (dr * l1r - di * l1i, dr * l1i + di * l1r);
+                        continue;
+                    }
+                    if (m.Ai == 0 && m.Bi == 0 && m.Ci == 0 && m.Di == 0)
+                    {
+                        // real matrix (RY and friends)
+                        var ar = Vector256.Create(m.Ar); var br = Vector256.Create(m.Br);
+                        var cr = Vector256.Create(m.Cr); var dr = Vector256.Create(m.Dr);
+                        (p0r, p1r) = (ar * p0r + br * p1r, cr * p0r + dr * p1r);
+                        (p0i, p1i) = (ar * p0i + br * p1i, cr * p0i + dr * p1i);
+                        (l0r, l1r) = (ar * l0r + br * l1r, cr * l0r + dr * l1r);
+                        (l0i, l1i) = (ar * l0i + br * l1i, cr * l0i + dr * l1i);
+                        continue;
+                    }
+                    {
                     var ar = Vector256.Create(m.Ar); var ai = Vector256.Create(m.Ai);
                     var br = Vector256.Create(m.Br); var bi = Vector256.Create(m.Bi);
                     var cr = Vector256.Create(m.Cr); var ci = Vector256.Create(m.Ci);
@@ -179,6 +205,7 @@ internal static unsafe class AdjointKernels
                     n1r = cr * l0r - ci * l0i + dr * l1r - di * l1i;
                     n1i = cr * l0i + ci * l0r + dr * l1i + di * l1r;
                     l0r = n0r; l0i = n0i; l1r = n1r; l1i = n1i;
+                    }
                 }
                 p0r.Store(pr + i0); p0i.Store(pi + i0); p1r.Store(pr + i1); p1i.Store(pi + i1);
                 l0r.Store(lr + i0); l0i.Store(li + i0); l1r.Store(lr + i1); l1i.Store(li + i1);

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using HybridRL.Quantum.Circuits;
 using HybridRL.Quantum.Observables;
 using HybridRL.Quantum.Randomness;
@@ -234,6 +235,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     private static readonly double D2 = (Math.Sqrt(2) - 1) / (4 * Math.Sqrt(2));
 
     /// <summary>Parameter-shift gradient of Σ_k g[k]·E_k for every differentiable slot; every shifted evaluation is counted.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ShiftRow(Workspace ws, ReadOnlySpan<double> g, Span<double> gTheta, int kt)
     {
         var theta = ws.Theta;
@@ -283,6 +285,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     }
 
     /// <summary>Applies per-qubit read-out confusion to a probability vector in place.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     protected static void ApplyReadout(Span<double> prob, int qubits, double[] p01, double[] p10)
     {
         for (int q = 0; q < qubits; q++)
@@ -301,6 +304,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     }
 
     /// <summary>Adds the exact expectations of a setting's terms, from its (read-out-confused) probabilities.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     protected static void AddExpectationsFromProbabilities(ReadOnlySpan<double> prob, MeasurementPlan.Setting s, Span<double> outputs, double factor)
     {
         foreach (var e in s.EntryArray)
@@ -317,6 +321,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     /// Samples <paramref name="shots"/> bit strings from prob (turned into a cumulative table in place), flips
     /// each read-out bit with the confusion probabilities, and adds factor·weight·(mean parity) per term.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     protected static void AddSampledExpectations(Span<double> prob, int qubits, MeasurementPlan.Setting s, int shots, RandomStream rng,
         double[]? p01, double[]? p10, Span<double> outputs, double factor, Span<double> termSums)
     {

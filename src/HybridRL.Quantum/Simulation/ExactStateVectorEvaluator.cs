@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using HybridRL.Quantum.Circuits;
 using HybridRL.Quantum.Observables;
 
@@ -15,6 +16,7 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
     protected override int StateBits => Qubits;
     protected override bool NeedsAdjointBuffers => GradientMethod == GradientMethod.Adjoint;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     protected override void EvaluateRow(Workspace ws, ReadOnlySpan<double> theta, Span<double> outputs, int kt)
     {
         StateVectorOps.RunFused(ws, C.Primitives, theta, Qubits, kt);
@@ -22,6 +24,7 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
         ws.Executions += Plan.SettingCount;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void Expectations(Workspace ws, Span<double> outputs)
     {
         outputs.Clear();
@@ -40,6 +43,7 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
     /// backward sweep undoing each gate on both; for U = exp(−iθP/2) the derivative is Im⟨λ|P|ψ⟩ at the point
     /// just after the gate (controlled: P restricted to control = 1; phase: −2·Im⟨λ|Π₁|ψ⟩).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     protected override void AdjointRow(Workspace ws, ReadOnlySpan<double> theta, ReadOnlySpan<double> gOut, Span<double> gTheta, int kt)
     {
         StateVectorOps.RunFused(ws, C.Primitives, theta, Qubits, kt);

@@ -44,6 +44,7 @@ internal static unsafe class StateKernels
     private static void Apply1Parallel(double[] re, double[] im, int q, Mat2 m, long pairs, int parts) =>
         Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) Apply1Range(r, i, q, m, a, b); });
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Apply1Range(double* re, double* im, int q, in Mat2 m, long k0, long k1)
     {
         long stride = 1L << q;
@@ -125,6 +126,7 @@ internal static unsafe class StateKernels
     private static void DiagParallel(double[] re, double[] im, int q, double d0r, double d0i, double d1r, double d1i, bool skip0, bool skip1, long pairs, int parts) =>
         Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, a, b); });
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void DiagRange(double* re, double* im, int q, double d0r, double d0i, double d1r, double d1i, bool skip0, bool skip1, long k0, long k1)
     {
         long stride = 1L << q;
@@ -176,6 +178,7 @@ internal static unsafe class StateKernels
     private static void ControlledParallel(double[] re, double[] im, int control, int target, Mat2 m, long quads, int parts) =>
         Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, m, a, b); });
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void ControlledRange(double* re, double* im, int c, int t, in Mat2 m, long k0, long k1)
     {
         int lo = Math.Min(c, t), hi = Math.Max(c, t);
@@ -203,6 +206,7 @@ internal static unsafe class StateKernels
     private static void CnotParallel(double[] re, double[] im, int control, int target, long quads, int parts) =>
         Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) CnotRange(r, i, control, target, a, b); });
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void CnotRange(double* re, double* im, int c, int t, long k0, long k1)
     {
         int lo = Math.Min(c, t), hi = Math.Max(c, t);
@@ -226,6 +230,7 @@ internal static unsafe class StateKernels
     private static void CzParallel(double[] re, double[] im, int a, int b, long quads, int parts) =>
         Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) CzRange(r, i, a, b, x, y); });
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void CzRange(double* re, double* im, int a, int b, long k0, long k1)
     {
         int lo = Math.Min(a, b), hi = Math.Max(a, b);
@@ -249,6 +254,7 @@ internal static unsafe class StateKernels
     private static void SwapParallel(double[] re, double[] im, int a, int b, long quads, int parts) =>
         Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) SwapRange(r, i, a, b, x, y); });
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void SwapRange(double* re, double* im, int a, int b, long k0, long k1)
     {
         int lo = Math.Min(a, b), hi = Math.Max(a, b);
@@ -268,6 +274,7 @@ internal static unsafe class StateKernels
     /// Applies a dense 2^k × 2^k complex matrix (row-major, separate re/im) to the listed bits
     /// (bits[0] is the least significant bit of the local index). Used for noise superoperators.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void ApplyDense(double[] re, double[] im, int bits, ReadOnlySpan<int> targets, ReadOnlySpan<double> mre, ReadOnlySpan<double> mim, Span<double> scratch)
     {
         int k = targets.Length, d = 1 << k;
@@ -317,6 +324,7 @@ internal static unsafe class StateKernels
     /// ⟨a|P|b⟩ for P = i^{nY} X^xMask Z^zMask, summed in a fixed order
     /// (P|j⟩ = i^{nY} (−1)^{|j∧z|} |j⊕x⟩).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static (double re, double im) PauliInner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, ulong xMask, ulong zMask)
     {
         long n = bRe.Length;
@@ -337,6 +345,7 @@ internal static unsafe class StateKernels
     }
 
     /// <summary>Σ_j |ψ_j|² (−1)^{|j∧z|}: expectation of a Z string.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double ZExpectation(ReadOnlySpan<double> re, ReadOnlySpan<double> im, ulong zMask)
     {
         double s = 0;
@@ -350,6 +359,7 @@ internal static unsafe class StateKernels
     }
 
     /// <summary>dst += c · P src for P = i^{nY} X^x Z^z (c complex).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void AddPauli(Span<double> dRe, Span<double> dIm, ReadOnlySpan<double> sRe, ReadOnlySpan<double> sIm, ulong xMask, ulong zMask, double cr, double ci)
     {
         var (yr, yi) = YPhase(System.Numerics.BitOperations.PopCount(xMask & zMask));
@@ -369,6 +379,7 @@ internal static unsafe class StateKernels
     /// ⟨a| (Π_control ⊗ P_q) |b⟩ for a single-qubit Pauli P ∈ {X, Y, Z} on qubit q, restricted to indices with
     /// all bits of <paramref name="controlMask"/> set (0 for no control).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static (double re, double im) Pauli1Inner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, int q, char pauli, long controlMask)
     {
         double sr = 0, si = 0;
@@ -399,6 +410,7 @@ internal static unsafe class StateKernels
     }
 
     /// <summary>⟨a| Π_{mask all set} |b⟩ (projector onto indices where every bit of mask is 1).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static (double re, double im) ProjectorInner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, long mask)
     {
         double sr = 0, si = 0;

@@ -86,7 +86,9 @@ public static class SimulatorBenchmark
     /// </summary>
     private static (double a, double b) Paired(Action a, Action b, double budgetSeconds)
     {
-        a(); b(); a(); b(); // warm-up (JIT, buffers)
+        // Warm-up: JIT tiers and buffers settle before timing.
+        var warm = Stopwatch.StartNew();
+        for (int i = 0; i < 20 || warm.Elapsed.TotalSeconds < 0.2 * budgetSeconds; i++) { a(); b(); if (warm.Elapsed.TotalSeconds > budgetSeconds) break; }
         int repsA = Calibrate(a), repsB = Calibrate(b);
         var ta = new List<double>(); var tb = new List<double>();
         var total = Stopwatch.StartNew();
