@@ -25,7 +25,8 @@ internal sealed class DensityMatrixEvaluator : EvaluatorBase
 
     public override SimulationMode Mode => SimulationMode.DensityMatrix;
     protected override int StateBits => 2 * Qubits;
-    protected override bool NeedsScratchState => true;
+    protected override bool NeedsScratchState => AnyBasisChange;
+    protected override bool NeedsProbabilities => true;
 
     protected override void OnProgressChanged(double progress) =>
         _noise = new NoiseProgram(C.Circuit, Options.Noise ?? NoiseModel.None, progress);

@@ -65,6 +65,9 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     protected abstract int StateBits { get; }
     protected virtual bool NeedsAdjointBuffers => false;
     protected virtual bool NeedsScratchState => false;
+    protected virtual bool NeedsProbabilities => false;
+    /// <summary>True when some measurement setting needs a basis change (a scratch copy of the state).</summary>
+    protected bool AnyBasisChange => Plan.Settings.Any(s => (s.XBasis | s.YBasis) != 0);
 
     /// <summary>Evaluates all outputs of one row for bound slot angles, adding executions and shots to ws.</summary>
     protected abstract void EvaluateRow(Workspace ws, ReadOnlySpan<double> theta, Span<double> outputs, int kernelThreads);
@@ -81,7 +84,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
         var list = _ws.ToList();
         while (list.Count < workers)
         {
-            var ws = new Workspace(1 << StateBits, Qubits, C.SlotAngles.Length, C.MappedCount, OutputCount, ParameterCount, InputCount, NeedsAdjointBuffers, NeedsScratchState);
+            var ws = new Workspace(1 << StateBits, Qubits, C.SlotAngles.Length, C.MappedCount, OutputCount, ParameterCount, InputCount, NeedsAdjointBuffers, NeedsScratchState, NeedsProbabilities);
             ws.TermSums = new double[Math.Max(1, Plan.Terms.Length)];
             list.Add(ws);
         }
