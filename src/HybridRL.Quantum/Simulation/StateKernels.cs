@@ -277,6 +277,7 @@ internal static unsafe class StateKernels
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void ApplyDense(double[] re, double[] im, int bits, ReadOnlySpan<int> targets, ReadOnlySpan<double> mre, ReadOnlySpan<double> mim, Span<double> scratch)
     {
+        if (targets.Length == 2) { ApplyDense2(re, im, bits, targets[0], targets[1], mre, mim); return; }
         int k = targets.Length, d = 1 << k;
         Span<long> offs = stackalloc long[16];
         Span<int> sorted = stackalloc int[4];
@@ -308,6 +309,51 @@ internal static unsafe class StateKernels
                 }
                 re[bas + offs[r]] = sr;
                 im[bas + offs[r]] = si;
+            }
+        }
+    }
+
+    /// <summary>Dense 4×4 complex matrix on bits (b0, b1), local index = bit b0 + 2·bit b1 (single-qubit channel superoperators).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void ApplyDense2(double[] re, double[] im, int bits, int b0, int b1, ReadOnlySpan<double> mre, ReadOnlySpan<double> mim)
+    {
+        int lo = Math.Min(b0, b1), hi = Math.Max(b0, b1);
+        long o1 = 1L << b0, o2 = 1L << b1, o3 = o1 | o2;
+        Span<double> mr = stackalloc double[16];
+        Span<double> mi = stackalloc double[16];
+        mre[..16].CopyTo(mr);
+        mim[..16].CopyTo(mi);
+        bool real = true;
+        for (int j = 0; j < 16; j++) if (mi[j] != 0) { real = false; break; }
+        long quads = 1L << (bits - 2);
+        fixed (double* r = re, m = im)
+        {
+            for (long k = 0; k < quads; k++)
+            {
+                long i0 = InsertZero(InsertZero(k, lo), hi);
+                long i1 = i0 | o1, i2 = i0 | o2, i3 = i0 | o3;
+                double x0r = r[i0], x1r = r[i1], x2r = r[i2], x3r = r[i3];
+                double x0i = m[i0], x1i = m[i1], x2i = m[i2], x3i = m[i3];
+                if (real)
+                {
+                    r[i0] = mr[0] * x0r + mr[1] * x1r + mr[2] * x2r + mr[3] * x3r;
+                    m[i0] = mr[0] * x0i + mr[1] * x1i + mr[2] * x2i + mr[3] * x3i;
+                    r[i1] = mr[4] * x0r + mr[5] * x1r + mr[6] * x2r + mr[7] * x3r;
+                    m[i1] = mr[4] * x0i + mr[5] * x1i + mr[6] * x2i + mr[7] * x3i;
+                    r[i2] = mr[8] * x0r + mr[9] * x1r + mr[10] * x2r + mr[11] * x3r;
+                    m[i2] = mr[8] * x0i + mr[9] * x1i + mr[10] * x2i + mr[11] * x3i;
+                    r[i3] = mr[12] * x0r + mr[13] * x1r + mr[14] * x2r + mr[15] * x3r;
+                    m[i3] = mr[12] * x0i + mr[13] * x1i + mr[14] * x2i + mr[15] * x3i;
+                    continue;
+                }
+                for (int row = 0; row < 4; row++)
+                {
+                    int a = 4 * row;
+                    double sr = mr[a] * x0r - mi[a] * x0i + mr[a + 1] * x1r - mi[a + 1] * x1i + mr[a + 2] * x2r - mi[a + 2] * x2i + mr[a + 3] * x3r - mi[a + 3] * x3i;
+                    double si = mr[a] * x0i + mi[a] * x0r + mr[a + 1] * x1i + mi[a + 1] * x1r + mr[a + 2] * x2i + mi[a + 2] * x2r + mr[a + 3] * x3i + mi[a + 3] * x3r;
+                    long idx = row switch { 0 => i0, 1 => i1, 2 => i2, _ => i3 };
+                    r[idx] = sr; m[idx] = si;
+                }
             }
         }
     }
