@@ -8,7 +8,20 @@ namespace HybridRL.Quantum.Simulation;
 internal sealed class ExactStateVectorEvaluator : EvaluatorBase
 {
     public ExactStateVectorEvaluator(Circuit circuit, IReadOnlyList<Observable> observables, SimulationOptions options, GradientMethod method)
-        : base(circuit, observables, options, method) { }
+        : base(circuit, observables, options, method)
+    {
+        int T = Plan.Terms.Length, dim = 1 << circuit.Qubits;
+        if (T > 0 && T <= 64 && (long)dim * T <= 1 << 16 && Plan.Terms.All(t => t.XMask == 0))
+        {
+            _diagSigns = new double[dim * T];
+            for (int j = 0; j < dim; j++)
+                for (int t = 0; t < T; t++)
+                    _diagSigns[j * T + t] = (System.Numerics.BitOperations.PopCount((ulong)j & Plan.Terms[t].ZMask) & 1) == 0 ? 1 : -1;
+        }
+    }
+
+    /// <summary>sign_t(j) table [dim × terms] when every term is a Z string and the table is small.</summary>
+    private readonly double[]? _diagSigns;
 
     private const int RunLimit = 16;
 
@@ -28,6 +41,24 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
     private void Expectations(Workspace ws, Span<double> outputs)
     {
         outputs.Clear();
+        if (_diagSigns != null)
+        {
+            // All terms are Z strings: one pass over probabilities with the sign table.
+            var terms = Plan.Terms;
+            int T = terms.Length;
+            Span<double> sums = stackalloc double[T];
+            sums.Clear();
+            var re = ws.Re; var im = ws.Im; var sg = _diagSigns;
+            for (int j = 0; j < re.Length; j++)
+            {
+                double pj = re[j] * re[j] + im[j] * im[j];
+                int row = j * T;
+                for (int t = 0; t < T; t++) sums[t] += pj * sg[row + t];
+            }
+            for (int t = 0; t < T; t++) outputs[terms[t].Output] += terms[t].Weight * sums[t];
+            AddConstants(outputs);
+            return;
+        }
         foreach (var e in Plan.Terms)
         {
             double v = e.XMask == 0
@@ -48,11 +79,31 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
     {
         StateVectorOps.RunFused(ws, C.Primitives, theta, Qubits, kt);
         var re = ws.Re; var im = ws.Im; var lr = ws.LRe; var li = ws.LIm;
-        Array.Clear(lr); Array.Clear(li);
-        foreach (var e in Plan.Terms)
+        if (_diagSigns != null)
         {
-            double c = gOut[e.Output] * e.Weight;
-            if (c != 0) StateKernels.AddPauli(lr, li, re, im, e.XMask, e.ZMask, c, 0);
+            // All terms diagonal: λ_j = (Σ_t c_t·sign_t(j))·ψ_j in one pass.
+            var terms = Plan.Terms;
+            int T = terms.Length;
+            Span<double> c = stackalloc double[T];
+            for (int t = 0; t < T; t++) c[t] = gOut[terms[t].Output] * terms[t].Weight;
+            var sg = _diagSigns;
+            for (int j = 0; j < re.Length; j++)
+            {
+                double d = 0;
+                int row = j * T;
+                for (int t = 0; t < T; t++) d += c[t] * sg[row + t];
+                lr[j] = d * re[j];
+                li[j] = d * im[j];
+            }
+        }
+        else
+        {
+            Array.Clear(lr); Array.Clear(li);
+            foreach (var e in Plan.Terms)
+            {
+                double c = gOut[e.Output] * e.Weight;
+                if (c != 0) StateKernels.AddPauli(lr, li, re, im, e.XMask, e.ZMask, c, 0);
+            }
         }
         var prims = C.Primitives;
         var diff = C.SlotDifferentiable;
@@ -108,6 +159,8 @@ internal sealed class ExactStateVectorEvaluator : EvaluatorBase
                 gTheta[p.Slot] += g;
             }
             if (i == 0) break;
+            if (!big && p.Kind == PrimitiveKind.CNOT) { StateKernels.ApplyCnotBoth(re, im, lr, li, n, p.Q0, p.Q1); continue; }
+            if (!big && p.Kind == PrimitiveKind.CZ) { StateKernels.ApplyCzBoth(re, im, lr, li, n, p.Q0, p.Q1); continue; }
             StateVectorOps.Apply(re, im, n, p, t, true, kt);
             StateVectorOps.Apply(lr, li, n, p, t, true, kt);
         }

@@ -268,6 +268,37 @@ internal static unsafe class StateKernels
         }
     }
 
+    /// <summary>CNOT on two states at once (ψ and λ of the adjoint sweep), single-threaded.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void ApplyCnotBoth(double[] re, double[] im, double[] re2, double[] im2, int bits, int c, int t)
+    {
+        int lo = Math.Min(c, t), hi = Math.Max(c, t);
+        long cb = 1L << c, tb = 1L << t, quads = 1L << (bits - 2);
+        fixed (double* r = re, m = im, r2 = re2, m2 = im2)
+            for (long k = 0; k < quads; k++)
+            {
+                long i0 = InsertZero(InsertZero(k, lo), hi) | cb, i1 = i0 | tb;
+                (r[i0], r[i1]) = (r[i1], r[i0]);
+                (m[i0], m[i1]) = (m[i1], m[i0]);
+                (r2[i0], r2[i1]) = (r2[i1], r2[i0]);
+                (m2[i0], m2[i1]) = (m2[i1], m2[i0]);
+            }
+    }
+
+    /// <summary>CZ on two states at once, single-threaded.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void ApplyCzBoth(double[] re, double[] im, double[] re2, double[] im2, int bits, int a, int b)
+    {
+        int lo = Math.Min(a, b), hi = Math.Max(a, b);
+        long both = (1L << a) | (1L << b), quads = 1L << (bits - 2);
+        fixed (double* r = re, m = im, r2 = re2, m2 = im2)
+            for (long k = 0; k < quads; k++)
+            {
+                long i = InsertZero(InsertZero(k, lo), hi) | both;
+                r[i] = -r[i]; m[i] = -m[i]; r2[i] = -r2[i]; m2[i] = -m2[i];
+            }
+    }
+
     // ---------------- dense k-bit operator (noise superoperators) ----------------
 
     /// <summary>
