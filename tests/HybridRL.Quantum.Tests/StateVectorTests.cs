@@ -149,7 +149,7 @@ public class StateVectorTests
         var x = TestCircuits.Uniform(rng, batch * 3);
         var w = TestCircuits.Uniform(rng, batch * 6);
         var g = TestCircuits.Uniform(rng, batch * obs.Length);
-        foreach (var mode in new[] { SimulationMode.StateVector, SimulationMode.Shots, SimulationMode.Trajectories })
+        foreach (var mode in new[] { SimulationMode.StateVector, SimulationMode.Shots, SimulationMode.Trajectories, SimulationMode.DensityMatrix })
         {
             double[] Run(int threads, out double[] gp, out double[] gi)
             {
@@ -157,13 +157,13 @@ public class StateVectorTests
                 {
                     Mode = mode, Threads = threads, Seed = 5,
                     Shots = mode == SimulationMode.Shots ? 200 : 0, Trajectories = 20,
-                    Noise = mode == SimulationMode.Trajectories ? Noise.NoiseModel.Uniform(Noise.NoiseChannelKind.AmplitudeDamping, 0.05) : null,
+                    Noise = mode is SimulationMode.Trajectories or SimulationMode.DensityMatrix ? Noise.NoiseModel.Uniform(Noise.NoiseChannelKind.AmplitudeDamping, 0.05) : null,
                 };
                 var ev = ExpectationEvaluatorFactory.Create(c, obs, opt);
                 var o = new double[batch * obs.Length];
                 ev.Forward(x, w, batch, true, o);
                 gp = new double[batch * 6]; gi = new double[batch * 3];
-                if (mode != SimulationMode.Trajectories) ev.Backward(x, w, batch, true, g, gp, gi);
+                if (mode is SimulationMode.StateVector or SimulationMode.Shots) ev.Backward(x, w, batch, true, g, gp, gi);
                 return o;
             }
             var o1 = Run(1, out var gp1, out var gi1);

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using HybridRL.Quantum.Circuits;
 
 namespace HybridRL.Quantum.Simulation;
@@ -121,6 +122,7 @@ internal sealed class CompiledCircuit
     public int ParameterCount => Circuit.ParameterCount;
 
     /// <summary>Slot angles for one row. <paramref name="mapped"/> is scratch of length <see cref="MappedCount"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Bind(ReadOnlySpan<double> inputs, ReadOnlySpan<double> parameters, Span<double> mapped, Span<double> theta, int row)
     {
         for (int m = 0; m < Maps.Length; m++)
@@ -135,6 +137,7 @@ internal sealed class CompiledCircuit
     }
 
     /// <summary>Adds the chain rule of slot gradients into parameter and input gradients (both must be zeroed by the caller).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Backprop(ReadOnlySpan<double> gradTheta, ReadOnlySpan<double> inputs, ReadOnlySpan<double> parameters, Span<double> gradParameters, Span<double> gradInputs, Span<double> gradMapped)
     {
         gradMapped.Clear();

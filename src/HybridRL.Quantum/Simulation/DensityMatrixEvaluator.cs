@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using HybridRL.Quantum.Circuits;
 using HybridRL.Quantum.Noise;
 using HybridRL.Quantum.Observables;
@@ -24,12 +25,14 @@ internal sealed class DensityMatrixEvaluator : EvaluatorBase
 
     public override SimulationMode Mode => SimulationMode.DensityMatrix;
     protected override int StateBits => 2 * Qubits;
-    protected override bool NeedsScratchState => true;
+    protected override bool NeedsScratchState => AnyBasisChange;
+    protected override bool NeedsProbabilities => true;
 
     protected override void OnProgressChanged(double progress) =>
         _noise = new NoiseProgram(C.Circuit, Options.Noise ?? NoiseModel.None, progress);
 
     /// <summary>Runs the circuit with noise into ws.Re/ws.Im (the vectorised ρ).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal void RunDensity(Workspace ws, ReadOnlySpan<double> theta, int kt)
     {
         int n = Qubits, bits = 2 * n;

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using HybridRL.Quantum.Circuits;
 using HybridRL.Quantum.Observables;
 using HybridRL.Quantum.Randomness;
@@ -64,6 +65,9 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     protected abstract int StateBits { get; }
     protected virtual bool NeedsAdjointBuffers => false;
     protected virtual bool NeedsScratchState => false;
+    protected virtual bool NeedsProbabilities => false;
+    /// <summary>True when some measurement setting needs a basis change (a scratch copy of the state).</summary>
+    protected bool AnyBasisChange => Plan.Settings.Any(s => (s.XBasis | s.YBasis) != 0);
 
     /// <summary>Evaluates all outputs of one row for bound slot angles, adding executions and shots to ws.</summary>
     protected abstract void EvaluateRow(Workspace ws, ReadOnlySpan<double> theta, Span<double> outputs, int kernelThreads);
@@ -80,7 +84,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
         var list = _ws.ToList();
         while (list.Count < workers)
         {
-            var ws = new Workspace(1 << StateBits, Qubits, C.SlotAngles.Length, C.MappedCount, OutputCount, ParameterCount, InputCount, NeedsAdjointBuffers, NeedsScratchState);
+            var ws = new Workspace(1 << StateBits, Qubits, C.SlotAngles.Length, C.MappedCount, OutputCount, ParameterCount, InputCount, NeedsAdjointBuffers, NeedsScratchState, NeedsProbabilities);
             ws.TermSums = new double[Math.Max(1, Plan.Terms.Length)];
             list.Add(ws);
         }
@@ -236,6 +240,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     private static readonly double D2 = (Math.Sqrt(2) - 1) / (4 * Math.Sqrt(2));
 
     /// <summary>Parameter-shift gradient of Σ_k g[k]·E_k for the given slots (all differentiable ones, or the parameter-dependent ones when no input gradient is wanted); every shifted evaluation is counted.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ShiftRow(Workspace ws, ReadOnlySpan<double> g, Span<double> gTheta, int kt, int[] slots, int hardware)
     {
         var theta = ws.Theta;
@@ -285,6 +290,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     }
 
     /// <summary>Applies per-qubit read-out confusion to a probability vector in place.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     protected static void ApplyReadout(Span<double> prob, int qubits, double[] p01, double[] p10)
     {
         for (int q = 0; q < qubits; q++)
@@ -303,6 +309,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     }
 
     /// <summary>Adds the exact expectations of a setting's terms, from its (read-out-confused) probabilities.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     protected static void AddExpectationsFromProbabilities(ReadOnlySpan<double> prob, MeasurementPlan.Setting s, Span<double> outputs, double factor)
     {
         foreach (var e in s.EntryArray)
@@ -319,6 +326,7 @@ internal abstract class EvaluatorBase : IExpectationEvaluator
     /// Samples <paramref name="shots"/> bit strings from prob (turned into a cumulative table in place), flips
     /// each read-out bit with the confusion probabilities, and adds factor·weight·(mean parity) per term.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     protected static void AddSampledExpectations(Span<double> prob, int qubits, MeasurementPlan.Setting s, int shots, RandomStream rng,
         double[]? p01, double[]? p10, Span<double> outputs, double factor, Span<double> termSums)
     {

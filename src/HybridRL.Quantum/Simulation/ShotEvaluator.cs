@@ -17,7 +17,8 @@ internal sealed class ShotEvaluator : EvaluatorBase
 
     public override SimulationMode Mode => SimulationMode.Shots;
     protected override int StateBits => Qubits;
-    protected override bool NeedsScratchState => true;
+    protected override bool NeedsScratchState => AnyBasisChange;
+    protected override bool NeedsProbabilities => true;
 
     protected override void EvaluateRow(Workspace ws, ReadOnlySpan<double> theta, Span<double> outputs, int kt)
     {

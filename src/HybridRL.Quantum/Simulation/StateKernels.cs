@@ -38,10 +38,13 @@ internal static unsafe class StateKernels
         long pairs = 1L << (bits - 1);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) Apply1Range(r, i, q, m, 0, pairs); return; }
-        var mm = m;
-        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) Apply1Range(r, i, q, mm, a, b); });
+        Apply1Parallel(re, im, q, m, pairs, parts);
     }
 
+    private static void Apply1Parallel(double[] re, double[] im, int q, Mat2 m, long pairs, int parts) =>
+        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) Apply1Range(r, i, q, m, a, b); });
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Apply1Range(double* re, double* im, int q, in Mat2 m, long k0, long k1)
     {
         long stride = 1L << q;
@@ -117,9 +120,13 @@ internal static unsafe class StateKernels
         long pairs = 1L << (bits - 1);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, 0, pairs); return; }
-        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, a, b); });
+        DiagParallel(re, im, q, d0r, d0i, d1r, d1i, skip0, skip1, pairs, parts);
     }
 
+    private static void DiagParallel(double[] re, double[] im, int q, double d0r, double d0i, double d1r, double d1i, bool skip0, bool skip1, long pairs, int parts) =>
+        Split(pairs, parts, (a, b) => { fixed (double* r = re, i = im) DiagRange(r, i, q, d0r, d0i, d1r, d1i, skip0, skip1, a, b); });
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void DiagRange(double* re, double* im, int q, double d0r, double d0i, double d1r, double d1i, bool skip0, bool skip1, long k0, long k1)
     {
         long stride = 1L << q;
@@ -165,10 +172,13 @@ internal static unsafe class StateKernels
         long quads = 1L << (bits - 2);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, m, 0, quads); return; }
-        var mm = m;
-        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, mm, a, b); });
+        ControlledParallel(re, im, control, target, m, quads, parts);
     }
 
+    private static void ControlledParallel(double[] re, double[] im, int control, int target, Mat2 m, long quads, int parts) =>
+        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) ControlledRange(r, i, control, target, m, a, b); });
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void ControlledRange(double* re, double* im, int c, int t, in Mat2 m, long k0, long k1)
     {
         int lo = Math.Min(c, t), hi = Math.Max(c, t);
@@ -190,9 +200,13 @@ internal static unsafe class StateKernels
         long quads = 1L << (bits - 2);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) CnotRange(r, i, control, target, 0, quads); return; }
-        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) CnotRange(r, i, control, target, a, b); });
+        CnotParallel(re, im, control, target, quads, parts);
     }
 
+    private static void CnotParallel(double[] re, double[] im, int control, int target, long quads, int parts) =>
+        Split(quads, parts, (a, b) => { fixed (double* r = re, i = im) CnotRange(r, i, control, target, a, b); });
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void CnotRange(double* re, double* im, int c, int t, long k0, long k1)
     {
         int lo = Math.Min(c, t), hi = Math.Max(c, t);
@@ -210,9 +224,13 @@ internal static unsafe class StateKernels
         long quads = 1L << (bits - 2);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) CzRange(r, i, a, b, 0, quads); return; }
-        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) CzRange(r, i, a, b, x, y); });
+        CzParallel(re, im, a, b, quads, parts);
     }
 
+    private static void CzParallel(double[] re, double[] im, int a, int b, long quads, int parts) =>
+        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) CzRange(r, i, a, b, x, y); });
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void CzRange(double* re, double* im, int a, int b, long k0, long k1)
     {
         int lo = Math.Min(a, b), hi = Math.Max(a, b);
@@ -230,9 +248,13 @@ internal static unsafe class StateKernels
         long quads = 1L << (bits - 2);
         int parts = Parts(bits, threads);
         if (parts == 1) { fixed (double* r = re, i = im) SwapRange(r, i, a, b, 0, quads); return; }
-        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) SwapRange(r, i, a, b, x, y); });
+        SwapParallel(re, im, a, b, quads, parts);
     }
 
+    private static void SwapParallel(double[] re, double[] im, int a, int b, long quads, int parts) =>
+        Split(quads, parts, (x, y) => { fixed (double* r = re, i = im) SwapRange(r, i, a, b, x, y); });
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void SwapRange(double* re, double* im, int a, int b, long k0, long k1)
     {
         int lo = Math.Min(a, b), hi = Math.Max(a, b);
@@ -246,14 +268,47 @@ internal static unsafe class StateKernels
         }
     }
 
+    /// <summary>CNOT on two states at once (ψ and λ of the adjoint sweep), single-threaded.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void ApplyCnotBoth(double[] re, double[] im, double[] re2, double[] im2, int bits, int c, int t)
+    {
+        int lo = Math.Min(c, t), hi = Math.Max(c, t);
+        long cb = 1L << c, tb = 1L << t, quads = 1L << (bits - 2);
+        fixed (double* r = re, m = im, r2 = re2, m2 = im2)
+            for (long k = 0; k < quads; k++)
+            {
+                long i0 = InsertZero(InsertZero(k, lo), hi) | cb, i1 = i0 | tb;
+                (r[i0], r[i1]) = (r[i1], r[i0]);
+                (m[i0], m[i1]) = (m[i1], m[i0]);
+                (r2[i0], r2[i1]) = (r2[i1], r2[i0]);
+                (m2[i0], m2[i1]) = (m2[i1], m2[i0]);
+            }
+    }
+
+    /// <summary>CZ on two states at once, single-threaded.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void ApplyCzBoth(double[] re, double[] im, double[] re2, double[] im2, int bits, int a, int b)
+    {
+        int lo = Math.Min(a, b), hi = Math.Max(a, b);
+        long both = (1L << a) | (1L << b), quads = 1L << (bits - 2);
+        fixed (double* r = re, m = im, r2 = re2, m2 = im2)
+            for (long k = 0; k < quads; k++)
+            {
+                long i = InsertZero(InsertZero(k, lo), hi) | both;
+                r[i] = -r[i]; m[i] = -m[i]; r2[i] = -r2[i]; m2[i] = -m2[i];
+            }
+    }
+
     // ---------------- dense k-bit operator (noise superoperators) ----------------
 
     /// <summary>
     /// Applies a dense 2^k × 2^k complex matrix (row-major, separate re/im) to the listed bits
     /// (bits[0] is the least significant bit of the local index). Used for noise superoperators.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void ApplyDense(double[] re, double[] im, int bits, ReadOnlySpan<int> targets, ReadOnlySpan<double> mre, ReadOnlySpan<double> mim, Span<double> scratch)
     {
+        if (targets.Length == 2) { ApplyDense2(re, im, bits, targets[0], targets[1], mre, mim); return; }
         int k = targets.Length, d = 1 << k;
         Span<long> offs = stackalloc long[16];
         Span<int> sorted = stackalloc int[4];
@@ -289,6 +344,51 @@ internal static unsafe class StateKernels
         }
     }
 
+    /// <summary>Dense 4×4 complex matrix on bits (b0, b1), local index = bit b0 + 2·bit b1 (single-qubit channel superoperators).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void ApplyDense2(double[] re, double[] im, int bits, int b0, int b1, ReadOnlySpan<double> mre, ReadOnlySpan<double> mim)
+    {
+        int lo = Math.Min(b0, b1), hi = Math.Max(b0, b1);
+        long o1 = 1L << b0, o2 = 1L << b1, o3 = o1 | o2;
+        Span<double> mr = stackalloc double[16];
+        Span<double> mi = stackalloc double[16];
+        mre[..16].CopyTo(mr);
+        mim[..16].CopyTo(mi);
+        bool real = true;
+        for (int j = 0; j < 16; j++) if (mi[j] != 0) { real = false; break; }
+        long quads = 1L << (bits - 2);
+        fixed (double* r = re, m = im)
+        {
+            for (long k = 0; k < quads; k++)
+            {
+                long i0 = InsertZero(InsertZero(k, lo), hi);
+                long i1 = i0 | o1, i2 = i0 | o2, i3 = i0 | o3;
+                double x0r = r[i0], x1r = r[i1], x2r = r[i2], x3r = r[i3];
+                double x0i = m[i0], x1i = m[i1], x2i = m[i2], x3i = m[i3];
+                if (real)
+                {
+                    r[i0] = mr[0] * x0r + mr[1] * x1r + mr[2] * x2r + mr[3] * x3r;
+                    m[i0] = mr[0] * x0i + mr[1] * x1i + mr[2] * x2i + mr[3] * x3i;
+                    r[i1] = mr[4] * x0r + mr[5] * x1r + mr[6] * x2r + mr[7] * x3r;
+                    m[i1] = mr[4] * x0i + mr[5] * x1i + mr[6] * x2i + mr[7] * x3i;
+                    r[i2] = mr[8] * x0r + mr[9] * x1r + mr[10] * x2r + mr[11] * x3r;
+                    m[i2] = mr[8] * x0i + mr[9] * x1i + mr[10] * x2i + mr[11] * x3i;
+                    r[i3] = mr[12] * x0r + mr[13] * x1r + mr[14] * x2r + mr[15] * x3r;
+                    m[i3] = mr[12] * x0i + mr[13] * x1i + mr[14] * x2i + mr[15] * x3i;
+                    continue;
+                }
+                for (int row = 0; row < 4; row++)
+                {
+                    int a = 4 * row;
+                    double sr = mr[a] * x0r - mi[a] * x0i + mr[a + 1] * x1r - mi[a + 1] * x1i + mr[a + 2] * x2r - mi[a + 2] * x2i + mr[a + 3] * x3r - mi[a + 3] * x3i;
+                    double si = mr[a] * x0i + mi[a] * x0r + mr[a + 1] * x1i + mi[a + 1] * x1r + mr[a + 2] * x2i + mi[a + 2] * x2r + mr[a + 3] * x3i + mi[a + 3] * x3r;
+                    long idx = row switch { 0 => i0, 1 => i1, 2 => i2, _ => i3 };
+                    r[idx] = sr; m[idx] = si;
+                }
+            }
+        }
+    }
+
     // ---------------- Pauli strings ----------------
 
     /// <summary>i^{nY}: the phase of P = i^{nY} X^x Z^z for a Pauli string with nY factors Y.</summary>
@@ -301,6 +401,7 @@ internal static unsafe class StateKernels
     /// ⟨a|P|b⟩ for P = i^{nY} X^xMask Z^zMask, summed in a fixed order
     /// (P|j⟩ = i^{nY} (−1)^{|j∧z|} |j⊕x⟩).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static (double re, double im) PauliInner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, ulong xMask, ulong zMask)
     {
         long n = bRe.Length;
@@ -321,6 +422,7 @@ internal static unsafe class StateKernels
     }
 
     /// <summary>Σ_j |ψ_j|² (−1)^{|j∧z|}: expectation of a Z string.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double ZExpectation(ReadOnlySpan<double> re, ReadOnlySpan<double> im, ulong zMask)
     {
         double s = 0;
@@ -334,6 +436,7 @@ internal static unsafe class StateKernels
     }
 
     /// <summary>dst += c · P src for P = i^{nY} X^x Z^z (c complex).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void AddPauli(Span<double> dRe, Span<double> dIm, ReadOnlySpan<double> sRe, ReadOnlySpan<double> sIm, ulong xMask, ulong zMask, double cr, double ci)
     {
         var (yr, yi) = YPhase(System.Numerics.BitOperations.PopCount(xMask & zMask));
@@ -353,6 +456,7 @@ internal static unsafe class StateKernels
     /// ⟨a| (Π_control ⊗ P_q) |b⟩ for a single-qubit Pauli P ∈ {X, Y, Z} on qubit q, restricted to indices with
     /// all bits of <paramref name="controlMask"/> set (0 for no control).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static (double re, double im) Pauli1Inner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, int q, char pauli, long controlMask)
     {
         double sr = 0, si = 0;
@@ -383,6 +487,7 @@ internal static unsafe class StateKernels
     }
 
     /// <summary>⟨a| Π_{mask all set} |b⟩ (projector onto indices where every bit of mask is 1).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static (double re, double im) ProjectorInner(ReadOnlySpan<double> aRe, ReadOnlySpan<double> aIm, ReadOnlySpan<double> bRe, ReadOnlySpan<double> bIm, long mask)
     {
         double sr = 0, si = 0;

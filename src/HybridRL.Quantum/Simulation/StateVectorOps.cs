@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 namespace HybridRL.Quantum.Simulation;
 
 /// <summary>Applies lowered primitives to a state vector (forward, fused forward, and inverse).</summary>
@@ -20,6 +21,7 @@ internal static class StateVectorOps
     }
 
     /// <summary>Applies one primitive (or its inverse) with the given angle.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Apply(double[] re, double[] im, int bits, in Primitive p, double theta, bool inverse, int kt)
     {
         switch (p.Kind)
@@ -47,6 +49,7 @@ internal static class StateVectorOps
     /// 2×2 matrix (flushed when a two-qubit primitive touches that qubit, and at the end); diagonal results
     /// are applied as phases.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void RunFused(Workspace ws, Primitive[] prims, ReadOnlySpan<double> theta, int qubits, int kt)
     {
         var re = ws.Re; var im = ws.Im;

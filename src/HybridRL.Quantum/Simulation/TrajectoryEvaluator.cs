@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using HybridRL.Quantum.Circuits;
 using HybridRL.Quantum.Noise;
 using HybridRL.Quantum.Observables;
@@ -24,11 +25,13 @@ internal sealed class TrajectoryEvaluator : EvaluatorBase
 
     public override SimulationMode Mode => SimulationMode.Trajectories;
     protected override int StateBits => Qubits;
-    protected override bool NeedsScratchState => true;
+    protected override bool NeedsScratchState => AnyBasisChange;
+    protected override bool NeedsProbabilities => true;
 
     protected override void OnProgressChanged(double progress) =>
         _noise = new NoiseProgram(C.Circuit, Options.Noise ?? NoiseModel.None, progress);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void RunTrajectory(Workspace ws, ReadOnlySpan<double> theta, int kt)
     {
         int n = Qubits;
@@ -68,6 +71,7 @@ internal sealed class TrajectoryEvaluator : EvaluatorBase
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Jump(Workspace ws, KrausSet set, int q, int n, int kt)
     {
         var re = ws.Re; var im = ws.Im;

@@ -5,11 +5,12 @@ namespace HybridRL.Quantum.Simulation;
 /// <summary>Per-worker buffers reused across rows and calls (nothing is allocated per row or per gate).</summary>
 internal sealed class Workspace
 {
-    public Workspace(int dim, int qubits, int slots, int mapped, int outputs, int parameters, int inputs, bool adjoint, bool scratchState)
+    public Workspace(int dim, int qubits, int slots, int mapped, int outputs, int parameters, int inputs, bool adjoint, bool scratchState, bool probabilities = false)
     {
         Re = new double[dim]; Im = new double[dim];
         if (adjoint) { LRe = new double[dim]; LIm = new double[dim]; }
-        if (scratchState) { SRe = new double[dim]; SIm = new double[dim]; Prob = new double[1 << qubits]; }
+        if (scratchState) { SRe = new double[dim]; SIm = new double[dim]; }
+        if (scratchState || probabilities) Prob = new double[1 << qubits];
         Theta = new double[slots]; GTheta = new double[slots];
         Mapped = new double[mapped]; GMapped = new double[mapped];
         Out = new double[outputs]; Out2 = new double[outputs];

@@ -17,6 +17,7 @@ public static class BenchmarkSuite
         TorchRuntime.EnsureLoaded();
         return group switch
         {
+            "simulator" => new SortedDictionary<string, double>(SimulatorBenchmark.Run(quick).ToDictionary(), StringComparer.Ordinal),
             "model" => new SortedDictionary<string, double>(Models.ModelBenchmark.Run(quick), StringComparer.Ordinal),
             "training" => Training(quick),
             _ => throw new ArgumentException($"unknown benchmark group '{group}'; one of: {string.Join(", ", Groups)}", nameof(group)),
