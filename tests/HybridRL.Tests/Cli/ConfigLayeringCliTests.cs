@@ -7,7 +7,7 @@ namespace HybridRL.Tests.Cli;
 /// <summary>Layering through the real program: experiment file &lt; HYBRIDRL_* environment variables &lt; --set.</summary>
 public sealed class ConfigLayeringCliTests
 {
-    private static readonly string Quickstart = Path.Combine(ConfigTestPaths.ConfigsFolder, "quickstart.yaml");
+    private static readonly string Quickstart = ConfigTestPaths.SmallWarehouseDqn;
 
     private static string LearningRate(IDictionary<string, string>? env, params string[] extra)
     {
@@ -22,7 +22,7 @@ public sealed class ConfigLayeringCliTests
     public void File_is_overridden_by_environment_which_is_overridden_by_set()
     {
         var env = new Dictionary<string, string> { ["HYBRIDRL_TRAINER__DQN__LEARNING_RATE"] = "0.02" };
-        Assert.Equal("0.01", LearningRate(null));                                              // configs/quickstart.yaml says 0.01
+        Assert.Equal("0.01", LearningRate(null));                                              // the fixture says 0.01
         Assert.Equal("0.02", LearningRate(env));                                               // the variable wins over the file
         Assert.Equal("0.03", LearningRate(env, "--set", "trainer.dqn.learning_rate=0.03"));    // --set wins over both
     }

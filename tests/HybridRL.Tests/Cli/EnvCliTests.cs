@@ -7,7 +7,7 @@ namespace HybridRL.Tests.Cli;
 [Collection(ConsoleCollection.Name)]
 public sealed class EnvCliTests
 {
-    private static readonly string Quickstart = Path.Combine(ConfigTestPaths.ConfigsFolder, "quickstart.yaml");
+    private static readonly string Quickstart = ConfigTestPaths.SmallWarehouseDqn;
 
     [Fact]
     public void Solve_prints_the_optimal_return_of_the_built_in_dock_map()
@@ -36,7 +36,7 @@ public sealed class EnvCliTests
     {
         var (code, stdout, stderr) = InProcessCli.Run("env", "solve", Quickstart);
         Assert.True(code == 0, stderr);
-        Assert.Contains("discount (gamma): 0.95", stdout);                          // trainer.dqn.gamma in configs/quickstart.yaml
+        Assert.Contains("discount (gamma): 0.95", stdout);                          // trainer.dqn.gamma in the fixture
     }
 
     [Fact]

@@ -8,7 +8,7 @@ namespace HybridRL.Tests.Cli;
 [Collection(ConsoleCollection.Name)]
 public sealed class InspectCliTests
 {
-    private static readonly string Quickstart = Path.Combine(ConfigTestPaths.ConfigsFolder, "quickstart.yaml");
+    private static readonly string Quickstart = ConfigTestPaths.SmallWarehouseDqn;
 
     private static JsonElement InspectJson(params string[] args)
     {

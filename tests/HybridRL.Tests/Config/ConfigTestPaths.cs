@@ -11,6 +11,9 @@ internal static class ConfigTestPaths
     public static string[] ExperimentFiles() =>
         Directory.GetFiles(ConfigsFolder, "*.yaml").Where(f => !f.EndsWith("-sweep.yaml", StringComparison.Ordinal)).OrderBy(f => f, StringComparer.Ordinal).ToArray();
 
+    /// <summary>A frozen small deep-Q experiment (test fixture) for tests that count its circuit and settings by hand.</summary>
+    public static string SmallWarehouseDqn => Path.Combine(RepositoryRoot, "tests", "HybridRL.Tests", "Data", "warehouse-dqn-small.yaml");
+
     public static string BadCasesFolder => Path.Combine(RepositoryRoot, "tests", "HybridRL.Tests", "Config", "bad");
 
     private static string FindRoot()

@@ -5,7 +5,7 @@ namespace HybridRL.Tests.Config;
 public sealed class SpecDiffTests
 {
     private static ExperimentSpec Quickstart(params string[] sets) =>
-        ExperimentSpecLoader.Load([Path.Combine(ConfigTestPaths.ConfigsFolder, "quickstart.yaml")], sets, new Dictionary<string, string>(), null);
+        ExperimentSpecLoader.Load([ConfigTestPaths.SmallWarehouseDqn], sets, new Dictionary<string, string>(), null);
 
     [Fact]
     public void Budget_and_logging_changes_are_safe_on_resume()
