@@ -47,7 +47,7 @@ public sealed class SpecRoundTripTests : IDisposable
         Assert.Equal(GradientMethod.ParameterShift, noisy.Model.Simulation!.Gradient);
         Assert.Equal(0.003, noisy.Trainer.Dqn!.LearningRate); // inherited from cartpole-dqn.yaml through extends
         var quick = specs.Single(s => s.Experiment.Name == "quickstart");
-        Assert.Equal((4, 4, 5000L), (quick.Model.Circuit!.Qubits, quick.Model.Circuit.Layers, quick.Experiment.Budget.EnvSteps)); // as written in configs/quickstart.yaml
+        Assert.Equal((4, 4, 10000L), (quick.Model.Circuit!.Qubits, quick.Model.Circuit.Layers, quick.Experiment.Budget.EnvSteps)); // as written in configs/quickstart.yaml
     }
 
     [Fact]
