@@ -39,7 +39,7 @@ public sealed class KillAndResumeTests(ITestOutputHelper output)
             bool done = false;
             while (!done)
             {
-                double delay = duration.TotalMilliseconds * (0.3 + 0.7 * moments.NextDouble());
+                double delay = duration.TotalMilliseconds * (0.3 + 0.6 * moments.NextDouble());
                 using var cli = CliProcess.Start(scenario.ContinueArgs(config, runs));
                 var clock = Stopwatch.StartNew();
                 while (!cli.HasExited && clock.Elapsed.TotalMilliseconds < delay) Thread.Sleep(5);

@@ -40,7 +40,7 @@ public sealed class ResumeScenario
           name: resume-dqn
           seed: 11
           budget:
-            env_steps: 500
+            env_steps: 300
         environment:
           kind: slippery-warehouse
           map: dock-3x4
@@ -68,7 +68,7 @@ public sealed class ResumeScenario
             target_update: hard
             target_update_every: 50
             gamma: 0.95
-            epsilon_decay_steps: 300
+            epsilon_decay_steps: 200
             optimizer: adam
             learning_rate: 0.01
             learning_rate_schedule: cosine
