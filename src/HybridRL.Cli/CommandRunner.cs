@@ -24,7 +24,8 @@ public static class CommandRunner
         }
         try
         {
-            return result.Invoke();
+            // System.CommandLine's own handler would turn every exception into exit code 1; the mapping below needs them.
+            return result.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false });
         }
         catch (Exception ex) when (IsInvalidInput(ex))
         {
@@ -39,6 +40,11 @@ public static class CommandRunner
         catch (RunLockedException ex)
         {
             Console.Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.Failure;
+        }
+        catch (Exception ex)
+        {
+            Console.Error.WriteLine($"error: unexpected failure: {ex}");
             return ExitCodes.Failure;
         }
     }
