@@ -51,6 +51,10 @@ public sealed class CorruptCheckpointResumeTests
             }
         }
         Assert.Throws<CheckpointCorruptException>(() => CheckpointReader.Open(newest).Dispose());
+        // What a kill in the middle of a checkpoint write leaves: a partial temporary file, which must be ignored and cleaned up.
+        byte[] previousBytes = File.ReadAllBytes(list[1].Path);
+        string partial = Path.Combine(dir, $".ckpt-{list[0].Step + 1:D12}.hrlc.tmp-999999-0badf00d");
+        File.WriteAllBytes(partial, previousBytes.AsSpan(0, previousBytes.Length / 3).ToArray());
 
         var (code, stdout, stderr) = CliProcess.Run(ResumeScenario.ResumeArgs(scenario.RunDir(runs)), TimeSpan.FromMinutes(2));
         Assert.True(code == 0, $"resume exited {code}\n{stdout}\n{stderr}");
@@ -62,6 +66,7 @@ public sealed class CorruptCheckpointResumeTests
             Assert.Contains($"section '{section}'", text);
         }
         Assert.Contains(Path.GetFileName(list[1].Path), log); // resumed from the previous one
+        Assert.False(File.Exists(partial), "the partial temporary checkpoint was not cleaned up");
         ResumeRunResult.Read(scenario.RunDir(runs)).AssertSameAs(expected, $"after a {damage}ed newest checkpoint");
     }
 }

@@ -27,10 +27,11 @@ public sealed class KillAndResumeTests(ITestOutputHelper output)
         string config = scenario.WriteConfig(tmp.Path);
 
         string baselineRuns = tmp.Combine("baseline");
-        TimeSpan duration = scenario.RunToEnd(config, baselineRuns);
+        var (training, duration) = scenario.TimeRunToEnd(config, baselineRuns);
         var expected = ResumeRunResult.Read(scenario.RunDir(baselineRuns));
 
-        // Kill moments: fixed seed, uniform over the part of an uninterrupted process's lifetime after start-up.
+        // Kill moments: fixed seed, uniform over the uninterrupted process's training time (from its first checkpoint
+        // to its exit), reaching a little before the first checkpoint so start-up kills happen too.
         var moments = RandomStream.FromRoot(20240607, "kill-moments-" + trainer);
         int kills = 0, midWrite = 0, attempt = 0;
         while (kills < KillsPerTrainer)
@@ -39,7 +40,7 @@ public sealed class KillAndResumeTests(ITestOutputHelper output)
             bool done = false;
             while (!done)
             {
-                double delay = duration.TotalMilliseconds * (0.3 + 0.6 * moments.NextDouble());
+                double delay = training.TotalMilliseconds + (duration - training).TotalMilliseconds * (1.1 * moments.NextDouble() - 0.1);
                 using var cli = CliProcess.Start(scenario.ContinueArgs(config, runs));
                 var clock = Stopwatch.StartNew();
                 while (!cli.HasExited && clock.Elapsed.TotalMilliseconds < delay) Thread.Sleep(5);
@@ -59,6 +60,6 @@ public sealed class KillAndResumeTests(ITestOutputHelper output)
             }
             ResumeRunResult.Read(scenario.RunDir(runs)).AssertSameAs(expected, $"{trainer}, run folder {attempt - 1} after {kills} kills so far");
         }
-        output.WriteLine($"{trainer}: uninterrupted process {duration.TotalSeconds:F1} s; {kills} kills over {attempt} run folders, {midWrite} during a checkpoint write");
+        output.WriteLine($"{trainer}: uninterrupted process {duration.TotalSeconds:F1} s, training from {training.TotalSeconds:F1} s; {kills} kills over {attempt} run folders, {midWrite} during a checkpoint write");
     }
 }

@@ -141,12 +141,28 @@ public sealed class ResumeScenario
     }
 
     /// <summary>Runs to completion; asserts exit code 0 and returns the wall time of the whole process.</summary>
-    public TimeSpan RunToEnd(string config, string runsDir)
+    public TimeSpan RunToEnd(string config, string runsDir) => TimeRunToEnd(config, runsDir).Total;
+
+    /// <summary>
+    /// Runs to completion (asserting exit code 0) and returns when, after the process start, the first checkpoint
+    /// file appeared (training is under way) and when the process ended.
+    /// </summary>
+    public (TimeSpan FirstCheckpoint, TimeSpan Total) TimeRunToEnd(string config, string runsDir)
     {
         var clock = Stopwatch.StartNew();
-        var (code, stdout, stderr) = CliProcess.Run(TrainArgs(config, runsDir), TimeSpan.FromMinutes(2));
-        Assert.True(code == 0, $"{Name}: train exited {code}\n{stdout}\n{stderr}");
-        return clock.Elapsed;
+        using var cli = CliProcess.Start(TrainArgs(config, runsDir));
+        string dir = Path.Combine(RunDir(runsDir), "checkpoints");
+        TimeSpan? first = null;
+        while (!cli.HasExited)
+        {
+            if (first is null && HybridRL.Checkpoints.CheckpointStore.List(dir).Count > 0) first = clock.Elapsed;
+            Thread.Sleep(5);
+            Assert.True(clock.Elapsed < TimeSpan.FromMinutes(2), $"{Name}: the run did not finish within 2 minutes");
+        }
+        int code = cli.WaitForExit(TimeSpan.FromSeconds(30));
+        var total = clock.Elapsed;
+        Assert.True(code == 0, $"{Name}: train exited {code}\n{cli.Stdout}\n{cli.Stderr}");
+        return (first ?? total, total);
     }
 
     /// <summary>
