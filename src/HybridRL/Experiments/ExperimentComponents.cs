@@ -31,7 +31,7 @@ public sealed class ExperimentComponents : IDisposable
             ActionCount = probe.ActionCount;
             ObservationIsBinary = probe.ObservationIsBinary;
         }
-        ModelSettings = MapModel(spec.Model);
+        ModelSettings = MapModel(spec.Model, spec.Trainer.Kind);
         Budget = new TrainingBudget(spec.Experiment.Budget.EnvSteps, spec.Experiment.Budget.Episodes, spec.Experiment.Budget.Generations,
             spec.Experiment.Budget.CircuitExecutions, spec.Experiment.Budget.WallSeconds);
     }
@@ -144,7 +144,7 @@ public sealed class ExperimentComponents : IDisposable
         EvalEpisodes = d.EvalEpisodes,
     };
 
-    private static Mdl.ModelSettings MapModel(Cfg.ModelSettings m)
+    private static Mdl.ModelSettings MapModel(Cfg.ModelSettings m, TrainerKind trainer)
     {
         if (m.Kind == Cfg.ModelKind.Classical)
         {
@@ -184,7 +184,11 @@ public sealed class ExperimentComponents : IDisposable
                 },
                 Shots = sim.Shots,
                 Trajectories = sim.Trajectories,
-                Gradient = sim.Gradient == Cfg.GradientMethod.Adjoint ? Q.Simulation.GradientMethod.Adjoint : Q.Simulation.GradientMethod.ParameterShift,
+                // Evolution trainers never take gradients (model.simulation.gradient does not apply to them): pick the method
+                // that is valid for the simulation mode, so shot or noisy simulation is not refused for a key the user cannot set.
+                Gradient = trainer != TrainerKind.Dqn
+                    ? (sim.Mode == Cfg.SimulationMode.Exact ? Q.Simulation.GradientMethod.Adjoint : Q.Simulation.GradientMethod.ParameterShift)
+                    : sim.Gradient == Cfg.GradientMethod.Adjoint ? Q.Simulation.GradientMethod.Adjoint : Q.Simulation.GradientMethod.ParameterShift,
                 Depolarizing = sim.Noise.Depolarizing,
                 TwoQubitDepolarizing = sim.Noise.TwoQubitDepolarizing,
                 AmplitudeDamping = sim.Noise.AmplitudeDamping,

@@ -12,7 +12,8 @@ namespace HybridRL.Experiments;
 public static class RunCheckpoint
 {
     /// <summary>Writes a checkpoint of <paramref name="trainer"/> into <paramref name="checkpointsDir"/> and returns its path.</summary>
-    public static string Save(ITrainer trainer, Action<BinaryWriter> loopState, ExperimentSpec spec, string checkpointsDir, double? score)
+    public static string Save(ITrainer trainer, Action<BinaryWriter> loopState, ExperimentSpec spec, string checkpointsDir, double? score,
+        params (string Name, Action<BinaryWriter> Write)[] extraSections)
     {
         ArgumentNullException.ThrowIfNull(trainer);
         ArgumentNullException.ThrowIfNull(loopState);
@@ -20,6 +21,7 @@ public static class RunCheckpoint
         var writer = new CheckpointWriter();
         trainer.Save((name, write) => writer.AddSection(name, write));
         writer.AddSection("loop", loopState);
+        foreach (var (name, write) in extraSections) writer.AddSection(name, write);
         writer.AddSection("config", w => w.Write(spec.ToYaml()));
         var header = new CheckpointHeader { TrainerKind = trainer.Kind, ConfigHash = spec.Hash(), Step = trainer.Counters.EnvSteps };
         return writer.Save(checkpointsDir, trainer.Counters.EnvSteps, header, score, spec.Logging.KeepCheckpoints);

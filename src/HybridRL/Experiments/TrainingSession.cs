@@ -23,6 +23,7 @@ public sealed class TrainingSession
     private readonly string _name;
     private readonly Verbosity _verbosity;
     private readonly TextWriter _out;
+    private IReadOnlyList<SpecDifference> _resumeChanges = [];
 
     private TrainingSession(ExperimentSpec spec, RunFolder folder, string name, string runId, Verbosity verbosity, TextWriter output)
     {
@@ -68,23 +69,35 @@ public sealed class TrainingSession
         string runId = Path.GetFileName(folder.Root);
         string name = Path.GetFileName(Path.GetDirectoryName(folder.Root)!) ?? spec.Experiment.Name;
         using (ExperimentComponents.Validate(spec)) { }
-        return new TrainingSession(spec, folder, name, runId, verbosity, output);
+        return new TrainingSession(spec, folder, name, runId, verbosity, output) { _resumeChanges = diff.Differences };
     }
 
     /// <summary>Runs to the end of the budget (or a signal). Returns the process exit code.</summary>
     public int Run(CancellationToken cancel)
     {
         _out.WriteLine(_folder.Root);
+        bool extendsFinishedRun = false;
         if (File.Exists(_folder.SummaryPath) && RunStatus.Detect(_folder).State == RunState.Done)
         {
-            _out.WriteLine($"run already finished; its summary is {_folder.SummaryPath}");
-            return ExitCodes.Done;
+            if (!BudgetExceedsNewestCheckpoint())
+            {
+                _out.WriteLine($"run already finished; its summary is {_folder.SummaryPath}");
+                return ExitCodes.Done;
+            }
+            extendsFinishedRun = true;
         }
 
         _folder.EnsureCreated();
         using var runLock = RunLock.Acquire(_folder);
         using var log = LogSetup.CreateForRun(_verbosity, _folder.LogPath);
         if (runLock.TakeoverNote is not null) log.Warning("{Note}", runLock.TakeoverNote);
+        foreach (var change in _resumeChanges)
+            log.Information("config changed on resume: {Key} {Before} -> {After}", change.Key, change.Before ?? "(absent)", change.After ?? "(absent)");
+        if (extendsFinishedRun)
+        {
+            log.Information("the run had finished; continuing it to the larger budget");
+            File.Delete(_folder.SummaryPath);
+        }
         if (File.Exists(_folder.FailedPath)) File.Delete(_folder.FailedPath);
         RefuseChangedConfigOnResume();
         AtomicFile.WriteAllText(_folder.ConfigPath, _spec.ToAnnotatedYaml());
@@ -92,6 +105,7 @@ public sealed class TrainingSession
         using var components = ExperimentComponents.Build(_spec);
         var trainer = components.Trainer;
         byte[]? loopState = null;
+        double? bestEvaluation = null;
 
         MetricsCsvWriter metrics;
         var newest = CheckpointStore.OpenNewestValid(_folder.CheckpointsDir, out var rejected);
@@ -102,6 +116,7 @@ public sealed class TrainingSession
             {
                 trainer.Load(name => newest.GetSection(name));
                 loopState = newest.ReadSectionBytes("loop").ToArray();
+                if (newest.HasSection(SessionSection)) bestEvaluation = ReadSessionSection(newest.GetSection(SessionSection));
                 log.Information("resumed from {Checkpoint} at step {Step}", newest.FilePath, trainer.Counters.EnvSteps);
             }
             metrics = File.Exists(_folder.MetricsPath)
@@ -117,7 +132,7 @@ public sealed class TrainingSession
         using (metrics)
         {
             var progress = ProgressReporter.ForConsole(_spec.Logging.ProgressSeconds, _verbosity == Verbosity.Quiet);
-            var sink = new RunFolderSink(this, metrics, runLock, log, progress);
+            var sink = new RunFolderSink(this, metrics, runLock, log, progress, bestEvaluation);
             var loop = new TrainingLoop(trainer, components.Budget, new TrainingSchedule(_spec.Logging.MetricsEverySteps, _spec.Logging.CheckpointEverySteps), sink);
             if (loopState is not null) loop.LoadState(new BinaryReader(new MemoryStream(loopState)));
             TrainingOutcome outcome;
@@ -160,6 +175,40 @@ public sealed class TrainingSession
         var keys = string.Join(", ", diff.UnsafeDifferences.Select(d => $"{d.Key} ({d.Before} → {d.After})"));
         throw new ConfigException([new ConfigError("run", _folder.ConfigPath, null,
             $"'{_folder.Root}' holds checkpoints of a different config: {keys}; resume it unchanged or start a new run (another run id)")]);
+    }
+
+    /// <summary>Whether the budget of this session's spec goes beyond the counters of the newest valid checkpoint (a finished run given a larger budget).</summary>
+    private bool BudgetExceedsNewestCheckpoint()
+    {
+        using var newest = CheckpointStore.OpenNewestValid(_folder.CheckpointsDir, out _);
+        if (newest is null || !newest.HasSection(CheckpointSections.Counters)) return false;
+        var counters = new TrainingCounters();
+        using (var r = newest.GetSection(CheckpointSections.Counters)) counters.Load(r);
+        var b = _spec.Experiment.Budget;
+        var budget = new TrainingBudget(b.EnvSteps, b.Episodes, b.Generations, b.CircuitExecutions, b.WallSeconds);
+        return !budget.IsUnlimited && budget.ReachedBy(counters) is null;
+    }
+
+    /// <summary>
+    /// Checkpoint section with the session's own state: the best periodic evaluation seen so far (from the
+    /// metrics rows), so that summary.json's best_return after a resume equals an uninterrupted run's.
+    /// </summary>
+    public const string SessionSection = "session";
+
+    private static void WriteSessionSection(BinaryWriter w, double? best)
+    {
+        w.Write(best.HasValue);
+        w.Write(best ?? 0);
+    }
+
+    private static double? ReadSessionSection(BinaryReader r)
+    {
+        using (r)
+        {
+            bool has = r.ReadBoolean();
+            double v = r.ReadDouble();
+            return has ? v : null;
+        }
     }
 
     private RunSummary Summarise(ExperimentComponents components, double? bestEvaluation)
@@ -223,9 +272,9 @@ public sealed class TrainingSession
         AtomicFile.WriteAllText(_folder.FailedPath, JsonSerializer.Serialize(new Dictionary<string, object> { ["status"] = "failed", ["message"] = message, ["time"] = DateTime.UtcNow.ToString("O") }, RunSummary.Json));
 
     /// <summary>Writes metrics rows and checkpoints into the run folder.</summary>
-    private sealed class RunFolderSink(TrainingSession session, MetricsCsvWriter metrics, RunLock runLock, ILogger log, ProgressReporter progress) : ITrainingSink
+    private sealed class RunFolderSink(TrainingSession session, MetricsCsvWriter metrics, RunLock runLock, ILogger log, ProgressReporter progress, double? bestEvaluation) : ITrainingSink
     {
-        public double? BestEvaluation { get; private set; }
+        public double? BestEvaluation { get; private set; } = bestEvaluation;
 
         public void OnMetrics(MetricsRow row, long rowIndex)
         {
@@ -237,7 +286,8 @@ public sealed class TrainingSession
         public void OnCheckpoint(ITrainer trainer, Action<BinaryWriter> loop, double? score)
         {
             metrics.FlushToDisk();
-            string path = RunCheckpoint.Save(trainer, loop, session._spec, session._folder.CheckpointsDir, score);
+            string path = RunCheckpoint.Save(trainer, loop, session._spec, session._folder.CheckpointsDir, score,
+                (SessionSection, w => WriteSessionSection(w, BestEvaluation)));
             runLock.Touch();
             log.Debug("checkpoint {Path}", path);
         }

@@ -6,8 +6,8 @@ using HybridRL.Checkpoints;
 namespace HybridRL.Experiments.Runs;
 
 /// <summary>
-/// Exclusive ownership of a run folder through a <c>run.lock</c> file created with O_EXCL semantics
-/// (<see cref="FileMode.CreateNew"/>), holding JSON <c>{"pid","host","started","heartbeat"}</c>. It needs no
+/// Exclusive ownership of a run folder through a <c>run.lock</c> file created exclusively and whole
+/// (written to a temporary file, then moved into place without overwriting), holding JSON <c>{"pid","host","started","heartbeat"}</c>. It needs no
 /// POSIX advisory locks, so it works on shared cluster file systems (NFS ≥ v3 honours exclusive create).
 /// <list type="bullet">
 /// <item>Holder on this host and its pid alive (and started before the lock was written) → refused, naming pid and host.</item>
@@ -116,18 +116,31 @@ public sealed class RunLock : IDisposable
             AtomicFile.TryDelete(LockPath);
     }
 
+    /// <summary>
+    /// Creates the lock with its whole content in one step: the JSON goes to a private temporary file first,
+    /// which is then moved to <c>run.lock</c> without overwriting (a hard link on Unix, so exclusive like O_EXCL).
+    /// A process killed at any moment therefore never leaves an empty or half-written run.lock behind.
+    /// </summary>
     private static bool TryCreate(string path, RunLockInfo info)
     {
+        string temp = AtomicFile.TempPathFor(path);
         try
         {
-            using var fs = new FileStream(path, FileMode.CreateNew, FileAccess.Write, FileShare.Read);
-            fs.Write(Encoding.UTF8.GetBytes(JsonSerializer.Serialize(info, Json)));
-            fs.Flush(flushToDisk: true);
+            using (var fs = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.Read))
+            {
+                fs.Write(Encoding.UTF8.GetBytes(JsonSerializer.Serialize(info, Json)));
+                fs.Flush(flushToDisk: true);
+            }
+            File.Move(temp, path, overwrite: false);
             return true;
         }
         catch (IOException) when (File.Exists(path))
         {
             return false;
+        }
+        finally
+        {
+            AtomicFile.TryDelete(temp);
         }
     }
 

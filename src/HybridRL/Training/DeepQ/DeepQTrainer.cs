@@ -219,6 +219,7 @@ public sealed class DeepQTrainer : ITrainer
         addSection("counters", Counters.Save);
         addSection("model.online", w => WriteDoubles(w, Flat(_online, _flatOnline)));
         addSection("model.target", w => WriteDoubles(w, Flat(_target, _flatTarget)));
+        addSection(ModelRandomState.Section, w => ModelRandomState.Save(w, [_online, _target]));
         addSection("optimizer", w => _optimizer.save_state_dict(w));
         addSection("replay", _replay.Save);
         addSection("random", w =>
@@ -253,6 +254,7 @@ public sealed class DeepQTrainer : ITrainer
         _online.SetFlat(_flatOnline);
         ReadDoubles(section("model.target"), _flatTarget);
         _target.SetFlat(_flatTarget);
+        ModelRandomState.Load(section(ModelRandomState.Section), [_online, _target]);
         _optimizer.load_state_dict(section("optimizer"));
         _replay.Load(section("replay"));
         var r = section("random");

@@ -20,6 +20,7 @@ public sealed class EvolutionTrainer : ITrainer
     private readonly ulong _rootSeed;
     private readonly Slice[] _slices;
     private readonly IAgentModel _evalModel;
+    private readonly IAgentModel[] _models;
     private readonly GreedyEvaluator? _evaluator;
     private readonly ExecutionTally _tally;
     private readonly double[] _population;
@@ -54,7 +55,8 @@ public sealed class EvolutionTrainer : ITrainer
         if (_evalModel.ParameterCount != strategy.Dimension)
             throw new ArgumentException($"search dimension {strategy.Dimension} does not match the model's {_evalModel.ParameterCount} parameters");
         _evaluator = settings.EvalEpisodes > 0 && settings.EvalEvery > 0 ? new GreedyEvaluator(environmentFactory(), settings.EvalEpisodes, rootSeed) : null;
-        _tally = new ExecutionTally(models.ToArray());
+        _models = models.ToArray();
+        _tally = new ExecutionTally(_models);
         _population = new double[lambda * strategy.Dimension];
         _fitness = new double[lambda];
         _memberSteps = new long[lambda];
@@ -144,6 +146,7 @@ public sealed class EvolutionTrainer : ITrainer
         addSection("counters", Counters.Save);
         addSection("model.center", w => DeepQTrainer.WriteDoubles(w, _strategy.Center));
         addSection("search", _strategy.Save);
+        addSection(ModelRandomState.Section, w => ModelRandomState.Save(w, _models));
         addSection("trainer", w =>
         {
             w.Write(_lastEval.HasValue);
@@ -160,6 +163,7 @@ public sealed class EvolutionTrainer : ITrainer
     {
         Counters.Load(section("counters"));
         _strategy.Load(section("search"));
+        ModelRandomState.Load(section(ModelRandomState.Section), _models);
         var t = section("trainer");
         bool hasEval = t.ReadBoolean();
         double eval = t.ReadDouble();
