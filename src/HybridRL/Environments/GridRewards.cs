@@ -11,14 +11,18 @@ public readonly record struct GridRewards(double StepCost, double GoalReward, do
         _ => 0,
     };
 
-    /// <summary>Builds the exact tabular model of a grid task with the Russell &amp; Norvig slip model (<see cref="GridMoves"/>). Goals and holes are terminal; the start distribution is uniform over start cells.</summary>
-    public TabularModel BuildModel(GridMap map, double slip)
+    /// <summary>Builds the exact tabular model of a grid task with the Russell &amp; Norvig slip model (<see cref="GridMoves"/>). Goals and holes are terminal; the start distribution is uniform over start cells, or with <paramref name="anyCell"/> uniform over every non-terminal cell.</summary>
+    public TabularModel BuildModel(GridMap map, double slip, bool anyCell = false)
     {
         var b = new TabularModelBuilder(map.StateCount, GridMoves.ActionCount);
+        int nonTerminal = 0;
+        for (int s = 0; s < map.StateCount; s++)
+            if (map.CellOfState(s) is not (GridCell.Goal or GridCell.Hole)) nonTerminal++;
         for (int s = 0; s < map.StateCount; s++)
         {
             var cell = map.CellOfState(s);
-            if (cell == GridCell.Start) b.SetStartProbability(s, 1.0 / map.StartCount);
+            if (anyCell ? cell is not (GridCell.Goal or GridCell.Hole) : cell == GridCell.Start)
+                b.SetStartProbability(s, 1.0 / (anyCell ? nonTerminal : map.StartCount));
             if (cell is GridCell.Goal or GridCell.Hole) { b.SetTerminal(s); continue; }
             for (int a = 0; a < GridMoves.ActionCount; a++)
                 for (int o = 0; o < 3; o++)

@@ -6,7 +6,8 @@ namespace HybridRL.Environments;
 /// Slippery warehouse (our own scenario): a robot on a warehouse floor map must reach a charging dock. Some floor
 /// tiles are open hatches (holes) that end the episode; each move slips sideways with the Russell &amp; Norvig model
 /// (<see cref="GridMoves"/>); every step costs a little. Reaching the dock or a hole is terminal; reaching
-/// <c>max_steps</c> truncates. Actions: 0 north, 1 east, 2 south, 3 west.
+/// <c>max_steps</c> truncates. Actions: 0 north, 1 east, 2 south, 3 west. With <c>start: random</c> an episode starts on
+/// any non-terminal cell (drawn from the episode's seed), otherwise on a start cell of the map.
 /// </summary>
 public sealed class SlipperyWarehouseEnvironment : IEnvironment
 {
@@ -24,7 +25,8 @@ public sealed class SlipperyWarehouseEnvironment : IEnvironment
     {
         _settings = settings ?? throw new ArgumentNullException(nameof(settings));
         _map = settings.Map;
-        _starts = Enumerable.Range(0, _map.StateCount).Where(s => _map.CellOfState(s) == GridCell.Start).ToArray();
+        _starts = Enumerable.Range(0, _map.StateCount)
+            .Where(s => settings.RandomStart ? _map.CellOfState(s) is not (GridCell.Goal or GridCell.Hole) : _map.CellOfState(s) == GridCell.Start).ToArray();
         _bits = Math.Max(1, (int)Math.Ceiling(Math.Log2(_map.StateCount)));
         ObservationSize = settings.Observation switch
         {
@@ -103,7 +105,7 @@ public sealed class SlipperyWarehouseEnvironment : IEnvironment
                 for (int i = 0; i < _bits; i++) o[i] = (state >> (_bits - 1 - i)) & 1;
                 break;
             case GridObservation.Index:
-                o[0] = _state;
+                o[0] = state;
                 break;
             default:
                 o[0] = _map.Height > 1 ? _map.RowOf(state) / (double)(_map.Height - 1) : 0;

@@ -14,6 +14,7 @@ public sealed class SlipperyWarehouseSettings : EnvironmentSettings
         ["hole_penalty"] = "1",
         ["max_steps"] = "100",
         ["observation"] = "one-hot",
+        ["start"] = "map",
     };
 
     private SlipperyWarehouseSettings(IReadOnlyDictionary<string, string> values) : base(KindName, values) { }
@@ -23,6 +24,14 @@ public sealed class SlipperyWarehouseSettings : EnvironmentSettings
     public GridRewards Rewards { get; private init; }
     public int MaxSteps { get; private init; }
     public GridObservation Observation { get; private init; }
+
+    /// <summary>
+    /// <c>start</c>: <c>map</c> (default) starts every episode on a start cell 'R' of the map (uniformly if there are
+    /// several); <c>random</c> starts it on any non-terminal cell, uniformly ("exploring starts", Sutton &amp; Barto
+    /// 2018 §5.3), so that every cell is visited during training. The optimal policy is the same for both (it is
+    /// optimal from every state); only the start distribution of the task and of <see cref="ToTabularModel"/> differs.
+    /// </summary>
+    public bool RandomStart { get; private init; }
 
     public static SlipperyWarehouseSettings Parse(IReadOnlyDictionary<string, string> parameters)
     {
@@ -41,6 +50,7 @@ public sealed class SlipperyWarehouseSettings : EnvironmentSettings
             "index" => GridObservation.Index,
             _ => GridObservation.Coordinates,
         };
+        bool randomStart = p.Choice("start", "map", "random") == "random";
         return new SlipperyWarehouseSettings(p.Resolved)
         {
             Map = map,
@@ -48,11 +58,12 @@ public sealed class SlipperyWarehouseSettings : EnvironmentSettings
             Rewards = new GridRewards(stepCost, dock, -hole),
             MaxSteps = maxSteps,
             Observation = obs,
+            RandomStart = randomStart,
         };
     }
 
     public override IEnvironment CreateEnvironment() => new SlipperyWarehouseEnvironment(this);
 
-    public override TabularModel ToTabularModel() => Rewards.BuildModel(Map, SlipProbability);
+    public override TabularModel ToTabularModel() => Rewards.BuildModel(Map, SlipProbability, RandomStart);
 
 }

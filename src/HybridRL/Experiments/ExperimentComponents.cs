@@ -97,7 +97,7 @@ public sealed class ExperimentComponents : IDisposable
         int threads = _spec.Model.Simulation?.Threads ?? 0;
         (EvolutionSettings settings, EvolutionTrainerSettings loop, string kind) = t.Kind switch
         {
-            TrainerKind.Genetic => ((EvolutionSettings)new GeneticSearchSettings(t.Genetic!.Population, TruncationCount(t.Genetic), t.Genetic.MutationSigma, t.Genetic.Elites, t.Genetic.Crossover ? 0.5 : 0.0),
+            TrainerKind.Genetic => ((EvolutionSettings)new GeneticSearchSettings(t.Genetic!.Population, TruncationCount(t.Genetic), t.Genetic.MutationSigma, t.Genetic.Elites, t.Genetic.Crossover ? 0.5 : 0.0, t.Genetic.EliteEpisodes),
                 new EvolutionTrainerSettings(t.Genetic.EpisodesPerMember, t.Genetic.EvalEpisodes, threads, t.Genetic.EvalEvery), "genetic"),
             TrainerKind.EvolutionStrategies => (new Training.Evolution.EvolutionStrategiesSettings(t.EvolutionStrategies!.Population, t.EvolutionStrategies.Sigma, t.EvolutionStrategies.LearningRate, t.EvolutionStrategies.WeightDecay),
                 new EvolutionTrainerSettings(t.EvolutionStrategies.EpisodesPerMember, t.EvolutionStrategies.EvalEpisodes, threads, t.EvolutionStrategies.EvalEvery), "evolution_strategies"),

@@ -10,6 +10,8 @@ public sealed record GeneticSettings
     public required int Elites { get; init; }
     public required bool Crossover { get; init; }
     public required int EpisodesPerMember { get; init; }
+    /// <summary>Extra episodes for each carried-over elite, folded into its mean fitness (0 = none).</summary>
+    public int EliteEpisodes { get; init; }
     /// <summary>Generations between evaluations of the best member; 0 = none.</summary>
     public required int EvalEvery { get; init; }
     public required int EvalEpisodes { get; init; }

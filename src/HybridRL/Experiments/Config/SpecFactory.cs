@@ -160,6 +160,7 @@ internal static class SpecFactory
         Elites = v.Int32("trainer.genetic.elites"),
         Crossover = v.Bool("trainer.genetic.crossover"),
         EpisodesPerMember = v.Int32("trainer.genetic.episodes_per_member"),
+        EliteEpisodes = v.Int32("trainer.genetic.elite_episodes"),
         EvalEvery = v.Int32("trainer.genetic.eval_every"),
         EvalEpisodes = v.Int32("trainer.genetic.eval_episodes"),
     };

@@ -10,7 +10,9 @@ namespace HybridRL.Training.Evolution;
 /// greedily on common episode seeds, in parallel slices over cores through the model's
 /// population forward path (all members of a slice step their episodes in lock-step, one batched
 /// circuit evaluation per time step). Each member's fitness lands in its own slot, so results
-/// are independent of the number of threads.
+/// are independent of the number of threads. Members the strategy flags in
+/// <see cref="IEvolutionStrategy.ExtraEpisodes"/> (genetic search's elites) run that many further episodes on
+/// seeds of their own; a member's fitness is the mean return over all of its episodes.
 /// </summary>
 public sealed class EvolutionTrainer : ITrainer
 {
@@ -26,7 +28,8 @@ public sealed class EvolutionTrainer : ITrainer
     private readonly double[] _population;
     private readonly double[] _fitness;
     private readonly long[] _memberSteps;
-    private readonly ulong[] _episodeSeeds;
+    private readonly int[] _extra;
+    private ulong[] _episodeSeeds;
     private readonly double[] _center;
     private readonly ReturnWindow _returns;
     private double? _lastEval;
@@ -61,6 +64,7 @@ public sealed class EvolutionTrainer : ITrainer
         _fitness = new double[lambda];
         _memberSteps = new long[lambda];
         _episodeSeeds = new ulong[Math.Max(1, settings.EpisodesPerMember)];
+        _extra = new int[lambda];
         _center = new double[strategy.Dimension];
         _returns = new ReturnWindow(Math.Max(1, lambda));
     }
@@ -75,13 +79,33 @@ public sealed class EvolutionTrainer : ITrainer
         int lambda = _strategy.PopulationSize, n = _strategy.Dimension;
         _strategy.Ask(_population);
         long g = Counters.Generations;
-        for (int e = 0; e < _episodeSeeds.Length; e++) _episodeSeeds[e] = RandomStream.SeedFor(_rootSeed, "generation-episodes", g * _episodeSeeds.Length + e);
+        int baseEpisodes = _s.EpisodesPerMember < 1 ? 1 : _s.EpisodesPerMember;
+        // Extra episodes the strategy asks for (genetic search: its carried-over elites). They use seeds of their own,
+        // shared by every flagged member of the generation (common random numbers), after the generation's shared seeds.
+        var extra = _strategy.ExtraEpisodes;
+        int maxExtra = 0;
+        long totalEpisodes = (long)lambda * baseEpisodes;
+        for (int i = 0; i < lambda; i++)
+        {
+            int x = Math.Max(0, extra[i]);
+            _extra[i] = x;
+            totalEpisodes += x;
+            if (x > maxExtra) maxExtra = x;
+        }
+        if (_episodeSeeds.Length < baseEpisodes + maxExtra) _episodeSeeds = new ulong[baseEpisodes + maxExtra];
+        for (int e = 0; e < baseEpisodes; e++) _episodeSeeds[e] = RandomStream.SeedFor(_rootSeed, "generation-episodes", g * baseEpisodes + e);
+        if (maxExtra > 0)
+        {
+            ulong extraRoot = RandomStream.SeedFor(_rootSeed, "generation-extra-episodes", g);
+            for (int e = 0; e < maxExtra; e++) _episodeSeeds[baseEpisodes + e] = RandomStream.SeedFor(extraRoot, "episode", e);
+        }
+        int rounds = baseEpisodes + maxExtra;
 
         Array.Clear(_fitness);
         Array.Clear(_memberSteps);
-        if (_slices.Length == 1) _slices[0].Evaluate(_population, n, _episodeSeeds, _fitness, _memberSteps);
+        if (_slices.Length == 1) _slices[0].Evaluate(_population, n, _episodeSeeds, rounds, baseEpisodes, _extra, _fitness, _memberSteps);
         else Parallel.For(0, _slices.Length, new ParallelOptions { MaxDegreeOfParallelism = _slices.Length },
-            w => _slices[w].Evaluate(_population, n, _episodeSeeds, _fitness, _memberSteps));
+            w => _slices[w].Evaluate(_population, n, _episodeSeeds, rounds, baseEpisodes, _extra, _fitness, _memberSteps));
 
         long steps = 0;
         for (int i = 0; i < lambda; i++)
@@ -90,7 +114,7 @@ public sealed class EvolutionTrainer : ITrainer
             _returns.Add(_fitness[i]);
         }
         Counters.EnvSteps += steps;
-        Counters.Episodes += (long)lambda * _episodeSeeds.Length;
+        Counters.Episodes += totalEpisodes;
         Counters.Generations++;
         Summarise();
         _strategy.Tell(_fitness);
@@ -187,8 +211,8 @@ public sealed class EvolutionTrainer : ITrainer
     {
         private readonly int _start, _count;
         private readonly IEnvironment[] _envs;
-        private readonly int[] _active;
-        private readonly double[] _obs, _params, _q, _returns;
+        private readonly int[] _active, _round;
+        private readonly double[] _obs, _params, _q, _returns, _sums;
         private readonly int _obsSize, _actions;
 
         public Slice(int start, int count, Func<IEnvironment> envFactory, IAgentModel model)
@@ -205,22 +229,34 @@ public sealed class EvolutionTrainer : ITrainer
             _params = new double[count * model.ParameterCount];
             _q = new double[count * _actions];
             _returns = new double[count];
+            _sums = new double[count];
+            _round = new int[count];
         }
 
         public IAgentModel Model { get; }
 
-        public void Evaluate(double[] population, int dim, ulong[] seeds, double[] fitness, long[] steps)
+        /// <summary>
+        /// Runs episode round e = 0 … rounds−1 (seed <c>seeds[e]</c>) for every member of the slice that takes part in it
+        /// (all members in the first <paramref name="baseEpisodes"/> rounds, then those with more extra episodes than
+        /// e − baseEpisodes), all taking part stepping in lock-step; fitness = mean return over the member's own episodes.
+        /// </summary>
+        public void Evaluate(double[] population, int dim, ulong[] seeds, int rounds, int baseEpisodes, int[] extra, double[] fitness, long[] steps)
         {
             if (_count == 0) return;
-            foreach (var seed in seeds)
+            for (int i = 0; i < _count; i++) _sums[i] = 0;
+            for (int e = 0; e < rounds; e++)
             {
-                int active = _count;
+                ulong seed = seeds[e];
+                int active = 0;
                 for (int i = 0; i < _count; i++)
                 {
-                    _active[i] = i;
+                    if (e >= baseEpisodes + extra[_start + i]) continue;
                     _returns[i] = 0;
-                    _envs[i].Reset(seed, _obs.AsSpan(i * _obsSize, _obsSize));
+                    _envs[i].Reset(seed, _obs.AsSpan(active * _obsSize, _obsSize));
+                    _active[active++] = i;
                 }
+                int taking = active;
+                for (int k = 0; k < taking; k++) _round[k] = _active[k];
                 while (active > 0)
                 {
                     // Row k of the observation buffer always holds member _active[k] (kept by the compaction below);
@@ -245,8 +281,9 @@ public sealed class EvolutionTrainer : ITrainer
                     }
                     active = stillActive;
                 }
-                for (int i = 0; i < _count; i++) fitness[_start + i] += _returns[i] / seeds.Length;
+                for (int k = 0; k < taking; k++) _sums[_round[k]] += _returns[_round[k]];
             }
+            for (int i = 0; i < _count; i++) fitness[_start + i] = _sums[i] / (baseEpisodes + extra[_start + i]);
         }
     }
 }

@@ -27,6 +27,7 @@ public sealed class EvolutionGridLearningTests
           slip_probability: 0.2
           step_cost: 0.01
           max_steps: 150
+          start: random
         model:
           circuit:
             qubits: 4
@@ -48,13 +49,18 @@ public sealed class EvolutionGridLearningTests
     {
         { "cma_es", 60, "cma_es:\n    population: 24\n    sigma0: 0.5\n    episodes_per_member: 16\n    eval_every: 0" },
         { "evolution_strategies", 60, "evolution_strategies:\n    population: 32\n    sigma: 0.2\n    learning_rate: 0.1\n    weight_decay: 0\n    episodes_per_member: 16\n    eval_every: 0" },
-        { "genetic", 60, "genetic:\n    population: 32\n    truncation: 0.25\n    mutation_sigma: 0.3\n    elites: 2\n    episodes_per_member: 16\n    eval_every: 0" },
+        { "genetic", 60, "genetic:\n    population: 32\n    truncation: 0.25\n    mutation_sigma: 0.3\n    elites: 2\n    elite_episodes: 64\n    episodes_per_member: 16\n    eval_every: 0" },
     };
 
-    // Not yet passing: with these settings all three methods settle on a policy that, from the rarely visited cell
-    // below the start, steps south into an open hatch (exact return ≈ 0.33 of 0.47 at γ = 0.99 for 3 of 3 CMA-ES and ES
-    // seeds; genetic 0.445 / 0.331). The fitness of 16 episodes barely sees that cell. Left for tuning (more episodes
-    // per member or a fitness on exact policy evaluation); skipped so the suite stays green.
+    // Not yet passing. Training uses exploring starts (start: random) and genetic search re-evaluates its elites on
+    // elite_episodes extra episodes; the score is the exact return from the map's start cell. Seen while tuning
+    // (seeds 1-3, 40-80 generations, 16-128 episodes per member): every method mostly settles on policy 11112222111
+    // (0.385 of 0.576, ratio 0.67); the best runs reach 12212112122 / 12112211121 (0.540, ratio 0.938: from the cell
+    // below the start it steps east, 0.1 into a hatch, instead of north) — just outside 5%. Only 16 of the 61 440
+    // terminating policies are within 5% (exhaustive policy evaluation), and they need the slow, safe moves in
+    // cells 3 and 9. With σ ≤ 0.3 every member of a generation has the same greedy policy as the initial vector
+    // (all east), so fitness is flat and the search does not move; with σ ≥ 1 the centre ends on a poor policy.
+    // Skipped so the suite stays green.
     [Theory(Skip = "evolution does not yet reach 5% of optimal on dock-3x4 for most seeds; see comment")]
     [MemberData(nameof(Methods))]
     public void Method_reaches_the_optimal_return_for_most_seeds(string kind, int generations, string section)

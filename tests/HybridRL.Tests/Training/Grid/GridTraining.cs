@@ -37,7 +37,10 @@ internal static class GridTraining
         var loop = new TrainingLoop(c.Trainer, c.Budget, new TrainingSchedule(spec.Logging.MetricsEverySteps, long.MaxValue / 4), sink);
         loop.Run(CancellationToken.None);
         var env = (SlipperyWarehouseEnvironment)c.CreateEnvironment();
-        var tabular = env.ToTabularModel();
+        // Scored on the task as the map defines it (episodes start on the map's start cell), also when training used
+        // exploring starts (environment start: random): same map, moves and rewards, only the start distribution differs.
+        var parameters = new Dictionary<string, string>(spec.Environment.Parameters) { ["start"] = "map" };
+        var tabular = SlipperyWarehouseSettings.Parse(parameters).ToTabularModel();
         using var model = c.CreateModel();
         model.SetFlat(c.Trainer.AgentParameters());
         int[] policy = GreedyPolicyTable.Extract(model, env);

@@ -34,6 +34,7 @@ public sealed class ThreadCountDeterminismTests
     [InlineData("cma_es", "cma_es:\n    population: 12\n    episodes_per_member: 3\n    eval_every: 2\n    eval_episodes: 3")]
     [InlineData("evolution_strategies", "evolution_strategies:\n    population: 12\n    episodes_per_member: 3\n    eval_every: 2\n    eval_episodes: 3")]
     [InlineData("genetic", "genetic:\n    population: 12\n    episodes_per_member: 3\n    eval_every: 2\n    eval_episodes: 3")]
+    [InlineData("genetic", "genetic:\n    population: 12\n    elites: 2\n    elite_episodes: 4\n    episodes_per_member: 3\n    eval_every: 2\n    eval_episodes: 3")]
     public void Evolution_rows_are_identical_for_one_and_two_workers(string kind, string section)
     {
         string yaml = string.Format(Environment, "generations: 6") + $"\ntrainer:\n  kind: {kind}\n  {section}\nlogging:\n  metrics_every_steps: 1\n";
