@@ -194,6 +194,16 @@ public sealed class ExperimentComponents : IDisposable
                 AmplitudeDamping = sim.Noise.AmplitudeDamping,
                 PhaseDamping = sim.Noise.PhaseDamping,
                 Readout = sim.Noise.ReadoutError,
+                BitFlip = sim.Noise.BitFlip,
+                PhaseFlip = sim.Noise.PhaseFlip,
+                Schedule = sim.Noise.Schedule switch
+                {
+                    NoiseSchedule.Linear => Q.Noise.ScheduleKind.LinearDrift,
+                    NoiseSchedule.Step => Q.Noise.ScheduleKind.Step,
+                    _ => Q.Noise.ScheduleKind.Constant,
+                },
+                EndScale = sim.Noise.EndScale,
+                StepAt = sim.Noise.StepAt,
                 Threads = Math.Max(1, sim.Threads),
             },
         };

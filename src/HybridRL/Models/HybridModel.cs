@@ -77,10 +77,19 @@ public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel, ISimul
     public static SimulationOptions SimulationOptionsFor(SimulationSettings s, int qubits, ulong seed)
     {
         var rules = new List<NoiseRule>();
-        if (s.Depolarizing > 0) rules.Add(new NoiseRule(NoiseChannelKind.Depolarizing, s.Depolarizing));
-        if (s.TwoQubitDepolarizing > 0) rules.Add(new NoiseRule(NoiseChannelKind.Depolarizing2, s.TwoQubitDepolarizing, NoiseRule.TwoQubitGates));
-        if (s.AmplitudeDamping > 0) rules.Add(new NoiseRule(NoiseChannelKind.AmplitudeDamping, s.AmplitudeDamping));
-        if (s.PhaseDamping > 0) rules.Add(new NoiseRule(NoiseChannelKind.PhaseDamping, s.PhaseDamping));
+        // Strengths follow the configured schedule over training progress (the trainers set NoiseProgress).
+        StrengthSchedule S(double v) => s.Schedule switch
+        {
+            ScheduleKind.LinearDrift => StrengthSchedule.LinearDrift(v, Math.Clamp(v * s.EndScale, 0, 1)),
+            ScheduleKind.Step => StrengthSchedule.Step(v, Math.Clamp(v * s.EndScale, 0, 1), s.StepAt),
+            _ => StrengthSchedule.Constant(v),
+        };
+        if (s.Depolarizing > 0) rules.Add(new NoiseRule(NoiseChannelKind.Depolarizing, S(s.Depolarizing)));
+        if (s.TwoQubitDepolarizing > 0) rules.Add(new NoiseRule(NoiseChannelKind.Depolarizing2, S(s.TwoQubitDepolarizing), NoiseRule.TwoQubitGates));
+        if (s.AmplitudeDamping > 0) rules.Add(new NoiseRule(NoiseChannelKind.AmplitudeDamping, S(s.AmplitudeDamping)));
+        if (s.PhaseDamping > 0) rules.Add(new NoiseRule(NoiseChannelKind.PhaseDamping, S(s.PhaseDamping)));
+        if (s.BitFlip > 0) rules.Add(new NoiseRule(NoiseChannelKind.BitFlip, S(s.BitFlip)));
+        if (s.PhaseFlip > 0) rules.Add(new NoiseRule(NoiseChannelKind.PhaseFlip, S(s.PhaseFlip)));
         var readout = s.Readout > 0 ? ReadoutError.Uniform(qubits, s.Readout, s.Readout) : null;
         NoiseModel? noise = rules.Count > 0 || readout is not null ? new NoiseModel(rules, readout) : null;
         if (s.Mode == SimulationMode.StateVector && noise is not null)

@@ -26,6 +26,7 @@ public sealed class DeepQTrainer : ITrainer
     private readonly TorchSharp.Modules.OptimizerHelper _optimizer;
     private readonly ReturnWindow _returns;
     private readonly ExecutionTally _tally;
+    private readonly IAgentModel[] _models;
 
     // Per-step buffers (no allocation on the hot path).
     private readonly double[] _obs, _next, _q;
@@ -57,7 +58,8 @@ public sealed class DeepQTrainer : ITrainer
         _replayRng = RandomStream.FromRoot(rootSeed, "replay-sampling");
         _episodeSeeds = RandomStream.FromRoot(rootSeed, "training-episodes");
         _returns = new ReturnWindow(settings.ReturnWindow);
-        _tally = new ExecutionTally(_online, _target);
+        _models = [_online, _target];
+        _tally = new ExecutionTally(_models);
 
         int n = env.ObservationSize, a = env.ActionCount, b = settings.BatchSize;
         _obs = new double[n];
@@ -94,6 +96,7 @@ public sealed class DeepQTrainer : ITrainer
 
     public void RunUnit(TrainingBudget budget)
     {
+        NoiseClock.Advance(_models, budget.DeterministicProgress(Counters));
         if (_needsReset)
         {
             _env.Reset(_episodeSeeds.NextUInt64(), _obs);

@@ -76,6 +76,7 @@ public sealed class EvolutionTrainer : ITrainer
 
     public void RunUnit(TrainingBudget budget)
     {
+        NoiseClock.Advance(_models, budget.DeterministicProgress(Counters));
         int lambda = _strategy.PopulationSize, n = _strategy.Dimension;
         _strategy.Ask(_population);
         long g = Counters.Generations;
