@@ -44,6 +44,11 @@ public sealed class InterruptSignals : IDisposable
         if (Interlocked.Increment(ref _interrupts) > 1)
         {
             Console.Error.WriteLine("second interrupt: stopping now; the previous checkpoint is still valid (hybridrl resume continues from it)");
+            Console.Error.Flush();
+            // _exit, not Environment.Exit: no managed shutdown or native destructors run while the training
+            // thread may be inside the tensor library (which can crash the teardown). Files on disk are safe:
+            // checkpoints and results are only ever replaced by atomic renames.
+            if (OperatingSystem.IsLinux() || OperatingSystem.IsMacOS()) LibC._exit(ImmediateExitCode);
             Environment.Exit(ImmediateExitCode);
         }
         Received ??= "SIGINT";
@@ -55,5 +60,11 @@ public sealed class InterruptSignals : IDisposable
     {
         foreach (var r in _registrations) r.Dispose();
         _cts.Dispose();
+    }
+
+    private static class LibC
+    {
+        [DllImport("libc", EntryPoint = "_exit")]
+        public static extern void _exit(int status);
     }
 }
