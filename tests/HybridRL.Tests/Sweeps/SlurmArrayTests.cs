@@ -6,6 +6,7 @@ using Xunit.Abstractions;
 namespace HybridRL.Tests.Sweeps;
 
 /// <summary>Real Slurm: submits a job array through <see cref="SlurmSubmitter"/> with the stand-in task fixture (Data/stand-in-task.sh).</summary>
+[Collection(SlurmCollection.Name)]
 public class SlurmArrayTests(ITestOutputHelper output)
 {
     private static CommandResult Run(string program, params string[] args) => ProcessCommandRunner.Instance.Run(program, args, TimeSpan.FromSeconds(30));
@@ -48,7 +49,7 @@ public class SlurmArrayTests(ITestOutputHelper output)
 
             // the batch shell forwards USR1, the stand-in exits 3, the trap handler requeues the element: it goes back to PENDING
             Assert.True(await Until(() => File.Exists(Path.Combine(marks, "interrupted-0")) && QueueState(job, 0) == "PENDING", TimeSpan.FromSeconds(60)),
-                $"task 0 was not requeued; state {QueueState(job, 0)}; output:\n{(File.Exists(out0) ? File.ReadAllText(out0) : "(none)")}");
+                $"task 0 was not requeued{SlurmDiagnostics.Describe(job, 0, out0)}");
             var status = SweepStatusReader.Read(plan, SlurmQueue.Query());
             Assert.Equal("PENDING", status[0].SlurmState);
             Assert.Equal($"{job}_0", status[0].SlurmJob);
@@ -56,8 +57,8 @@ public class SlurmArrayTests(ITestOutputHelper output)
             // a requeued task is held ~120 s (BeginTime); release it now
             var release = Run("scontrol", "update", $"JobId={job}_0", "StartTime=now");
             Assert.True(release.ExitCode == 0, release.StandardError);
-            Assert.True(await Until(() => File.Exists(Path.Combine(marks, "done-0")) && QueueState(job, 0) is null, TimeSpan.FromSeconds(90)),
-                $"requeued task 0 did not complete; state {QueueState(job, 0)}");
+            Assert.True(await Until(() => File.Exists(Path.Combine(marks, "done-0")) && QueueState(job, 0) is null, TimeSpan.FromSeconds(120)),
+                $"requeued task 0 did not complete{SlurmDiagnostics.Describe(job, 0, out0)}");
             Assert.True(await Until(() => File.ReadAllText(out0).Contains("task exited with 0"), TimeSpan.FromSeconds(10)));
 
             string log = File.ReadAllText(out0); // --open-mode=append keeps both attempts

@@ -11,6 +11,7 @@ namespace HybridRL.Tests.Sweeps;
 /// The whole path on a real Slurm: <c>sweep submit</c> with the real CLI as the array task, one task pre-empted with USR1 and requeued,
 /// results compared with <c>sweep run</c> of the same sweep on local cores.
 /// </summary>
+[Collection(SlurmCollection.Name)]
 public class SweepSlurmEndToEndTests(ITestOutputHelper output)
 {
     // Runs in order (zip, then seeds): 0 dqn seed 1, 1 dqn seed 2, 2 cma_es seed 1, 3 cma_es seed 2. The deep-Q runs are longer
@@ -55,7 +56,7 @@ public class SweepSlurmEndToEndTests(ITestOutputHelper output)
         {
             // wait until task 0 has checkpointed after its warm-up (gradient updates under way), then pre-empt it
             bool checkpointed = await SweepEndToEnd.Until(() => CheckpointStore.List(Path.Combine(run0, "checkpoints")).Any(c => c.Step >= 1200), TimeSpan.FromSeconds(90));
-            Assert.True(checkpointed, $"task 0 wrote no checkpoint past step 1200; output:\n{Out0()}");
+            Assert.True(checkpointed, $"task 0 wrote no checkpoint past step 1200{SlurmDiagnostics.Describe(job, 0, out0)}");
             status = e2e.Cli("sweep", "status", slurmFile);
             output.WriteLine(status.Stdout);
             Assert.Equal("running", SweepEndToEnd.States(status.Stdout)[0]);
@@ -67,7 +68,7 @@ public class SweepSlurmEndToEndTests(ITestOutputHelper output)
             bool requeued = await SweepEndToEnd.Until(() => Out0().Contains("[batch] task exited with 3") && QueueState(job, 0) == "PENDING", TimeSpan.FromSeconds(60));
             if (!signal.HasExited) signal.Kill();
             else if (!requeued) Assert.True(signal.ExitCode == 0, signal.StandardError.ReadToEnd());
-            Assert.True(requeued, $"task 0 was not interrupted and requeued (finished before the signal?); state {QueueState(job, 0)}; output:\n{Out0()}");
+            Assert.True(requeued, $"task 0 was not interrupted and requeued (finished before the signal?){SlurmDiagnostics.Describe(job, 0, out0)}");
             Assert.False(File.Exists(Path.Combine(run0, "summary.json")));
             status = e2e.Cli("sweep", "status", slurmFile);
             output.WriteLine(status.Stdout);
@@ -80,7 +81,7 @@ public class SweepSlurmEndToEndTests(ITestOutputHelper output)
             bool finished = await SweepEndToEnd.Until(
                 () => slurm.Runs.All(r => File.Exists(Path.Combine(slurm.RunDir(r), "summary.json"))) && SlurmQueue.Query()?.Any(q => q.JobId == job) == false,
                 TimeSpan.FromSeconds(120));
-            Assert.True(finished, $"the array did not finish; queue: {string.Join(", ", SlurmQueue.Query()?.Where(q => q.JobId == job).Select(q => $"{q.ArrayIndex} {q.State}") ?? [])}");
+            Assert.True(finished, $"the array did not finish{SlurmDiagnostics.Describe(job, 0, out0)}");
         }
         finally
         {
