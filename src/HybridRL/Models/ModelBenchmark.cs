@@ -9,14 +9,15 @@ namespace HybridRL.Models;
 /// <summary>
 /// Speed figures of the models (for <c>hybridrl bench model</c>). Each time is the fastest of several
 /// repeats after a JIT warm-up (the repeat least disturbed by other load on a shared machine; common
-/// practice); the ratio's two sides are timed interleaved in one run.
+/// practice); a ratio is the median of per-pair ratios of its two sides timed alternately in one run.
 /// </summary>
 public static class ModelBenchmark
 {
     /// <summary>
     /// Keys: mps_forward_backward_ms (100 inputs, χ = 16, d = 6, batch 32),
     /// population_forward_us_per_member (K = 64, 6 qubits, 4 layers, MPS 100→6),
-    /// quantum_layer_overhead_ratio (layer forward+backward through TorchSharp ÷ engine forward+backward, batch 32),
+    /// quantum_layer_overhead_ratio (layer forward+backward through TorchSharp ÷ engine forward+backward, batch 32; median of
+    /// interleaved pair ratios),
     /// plus the raw times and parameter counts behind them.
     /// </summary>
     public static Dictionary<string, double> Run(bool quick)
@@ -98,10 +99,10 @@ public static class ModelBenchmark
                 y.sum().backward();
             }
             // Interleaved so that load changes on a shared machine hit both sides alike.
-            var (engineMs, layerMs) = FastestPair(repeats * 2, Engine, Layer);
+            var (engineMs, layerMs, ratio) = TimedPairs(repeats * 4, Engine, Layer);
             result["quantum_layer_ms"] = layerMs;
             result["engine_forward_backward_ms"] = engineMs;
-            result["quantum_layer_overhead_ratio"] = layerMs / engineMs;
+            result["quantum_layer_overhead_ratio"] = ratio;
         }
         return result;
     }
@@ -130,12 +131,18 @@ public static class ModelBenchmark
         action();
     }
 
-    private static (double, double) FastestPair(int repeats, Action a, Action b)
+    /// <summary>
+    /// Times <paramref name="a"/> and <paramref name="b"/> alternately: the fastest time of each and the median of the
+    /// per-pair ratios b/a. A ratio taken within one pair sees the same load and thread-wake latency on both sides,
+    /// so its median is steadier than the ratio of two separate minima.
+    /// </summary>
+    private static (double FastestA, double FastestB, double MedianRatio) TimedPairs(int repeats, Action a, Action b)
     {
         WarmUp(a);
         WarmUp(b);
         var ta = new double[repeats];
         var tb = new double[repeats];
+        var ratio = new double[repeats];
         for (int r = 0; r < repeats; r++)
         {
             long t0 = Stopwatch.GetTimestamp();
@@ -144,8 +151,11 @@ public static class ModelBenchmark
             t0 = Stopwatch.GetTimestamp();
             b();
             tb[r] = Stopwatch.GetElapsedTime(t0).TotalMilliseconds;
+            ratio[r] = tb[r] / ta[r];
         }
-        return (ta.Min(), tb.Min());
+        Array.Sort(ratio);
+        double median = repeats % 2 == 1 ? ratio[repeats / 2] : 0.5 * (ratio[repeats / 2 - 1] + ratio[repeats / 2]);
+        return (ta.Min(), tb.Min(), median);
     }
 
     private static double Fastest(int repeats, Action action)
