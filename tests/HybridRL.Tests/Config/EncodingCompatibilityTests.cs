@@ -23,6 +23,11 @@ public sealed class EncodingCompatibilityTests : IDisposable
         Assert.Equal("model.circuit.qubits", tooMany.Key);
         Assert.Contains("at least 5 qubits", tooMany.Message); // ⌈log2 17⌉ = 5
         Assert.Empty(EncodingCompatibility.Check(model, "x", new EnvironmentShape(1, 4, 16)));
+        // a discrete environment that sends its state as 4 bits instead of the index
+        var bits = Assert.Single(EncodingCompatibility.Check(model, "slippery-warehouse", new EnvironmentShape(4, 4, 11)));
+        Assert.Equal("model.circuit.encoding", bits.Key);
+        Assert.Contains("gives 4 observation values", bits.Message);
+        Assert.Contains("observation: index", bits.Message);
     }
 
     [Fact]

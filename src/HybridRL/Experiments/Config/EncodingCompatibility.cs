@@ -23,6 +23,11 @@ public static class EncodingCompatibility
                 problems.Add(("model.circuit.qubits",
                     $"basis encoding of {states} states needs at least {needed} qubits (2^{circuit.Qubits} = {circuit.FeatureCapacity} < {states}); raise model.circuit.qubits"));
             }
+            if (shape.DiscreteStateCount is not null && shape.ObservationSize != 1)
+            {
+                problems.Add(("model.circuit.encoding",
+                    $"basis encoding reads one feature, the state index, but environment '{environmentKind}' gives {shape.ObservationSize} observation values; set the environment's observation to the state index (slippery-warehouse: observation: index) or use encoding angle"));
+            }
         }
         else if (model.Compressor.Kind == CompressorKind.None && shape.ObservationSize > circuit.FeatureCapacity)
         {
