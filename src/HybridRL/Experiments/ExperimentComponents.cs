@@ -234,6 +234,7 @@ public sealed class ExperimentComponents : IDisposable
         EntanglingGate = c.EntanglingGate == Cfg.EntanglingGate.Cnot ? Mdl.EntanglingGate.CNOT : Mdl.EntanglingGate.CZ,
         InputSquash = c.InputSquash == Cfg.InputSquash.Arctan ? Q.Circuits.InputSquash.Arctan : Q.Circuits.InputSquash.None,
         TrainableInputScaling = c.TrainableInputScaling,
+        TrainableReadout = c.TrainableOutputWeights,
         Readout = c.Readout == Cfg.ReadoutKind.PerAction ? Mdl.ReadoutKind.PerAction : Mdl.ReadoutKind.Linear,
     };
 

@@ -25,4 +25,6 @@ public sealed record CircuitSettings
     public bool TrainableInputScaling { get; init; } = true;
     /// <summary><c>model.circuit.readout</c>: per_action | linear.</summary>
     public ReadoutKind Readout { get; init; } = ReadoutKind.PerAction;
+    /// <summary><c>model.circuit.trainable_output_weights</c>: false keeps the read-out at its initial values, with no parameters.</summary>
+    public bool TrainableReadout { get; init; } = true;
 }

@@ -58,7 +58,7 @@ public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel, ISimul
         CircuitDesign = ModelCircuit.Build(settings.Circuit, features, actionCount);
         var options = SimulationOptionsFor(settings.Simulation, settings.Circuit.Qubits, seed);
         _layer = new QuantumLayer(CircuitDesign.Circuit, CircuitDesign.Observables, options, settings.Circuit.Readout, actionCount,
-            init.Derive("circuit"), CircuitDesign.IsScaleParameter);
+            init.Derive("circuit"), CircuitDesign.IsScaleParameter, settings.Circuit.TrainableReadout);
         if (_compressor is not null)
         {
             register_module("compressor", (nn.Module)_compressor);

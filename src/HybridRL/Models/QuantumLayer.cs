@@ -18,6 +18,8 @@ namespace HybridRL.Models;
 /// Flat parameter order (one parameter tensor <c>weights</c>): circuit parameters (the circuit's own
 /// numbering), then readout weights (per_action: [A]; linear: [A, n_obs] row-major), then readout biases [A].
 /// Circuit parameters that are input scales start at 1; rotation angles uniform in [−π, π) (common practice).
+/// With a fixed read-out (<c>trainableReadout: false</c>) the read-out keeps its initial values (per_action: w = 1, b = 0;
+/// linear: the seeded W, b = 0) and has no parameters: the flat vector holds the circuit parameters only.
 /// </para>
 /// Not safe for concurrent calls (the evaluator is not).
 /// </summary>
@@ -25,11 +27,13 @@ public sealed class QuantumLayer : nn.Module<Tensor, Tensor>
 {
     private readonly Parameter _weights;
     private readonly int _circuitCount, _readoutWeightCount;
+    private readonly double[]? _fixedReadout; // read-out weights then biases when the read-out is not trained
 
     /// <summary>Builds a layer for any circuit and observables (library use).</summary>
     /// <param name="isScaleParameter">Optional: which circuit parameters are input scales (initialised to 1).</param>
+    /// <param name="trainableReadout">False: the read-out stays at its initial values and is not a parameter.</param>
     public QuantumLayer(Circuit circuit, IReadOnlyList<Observable> observables, SimulationOptions options, ReadoutKind readout,
-        int outputCount, RandomStream random, Func<int, bool>? isScaleParameter = null)
+        int outputCount, RandomStream random, Func<int, bool>? isScaleParameter = null, bool trainableReadout = true)
         : base("quantum_layer")
     {
         ArgumentNullException.ThrowIfNull(circuit);
@@ -49,6 +53,11 @@ public sealed class QuantumLayer : nn.Module<Tensor, Tensor>
         double bound = 1.0 / Math.Sqrt(observables.Count);
         for (int i = 0; i < _readoutWeightCount; i++)
             values[_circuitCount + i] = readout == ReadoutKind.PerAction ? 1.0 : bound * (2.0 * random.NextDouble() - 1.0);
+        if (!trainableReadout)
+        {
+            _fixedReadout = values[_circuitCount..];
+            values = values[.._circuitCount];
+        }
         _weights = TensorMemory.NewParameter(values, values.Length);
         register_parameter("weights", _weights);
         HardwareExecutionsPerGradientRow = GradientCost.HardwareExecutionsPerGradient(circuit, observables);
@@ -61,8 +70,9 @@ public sealed class QuantumLayer : nn.Module<Tensor, Tensor>
     public int InputCount => Evaluator.InputCount;
     public int OutputCount { get; }
     public int CircuitParameterCount => _circuitCount;
-    public int ReadoutParameterCount => _readoutWeightCount + OutputCount;
-    public int ParameterCount => _circuitCount + _readoutWeightCount + OutputCount;
+    public int ReadoutParameterCount => _fixedReadout is null ? _readoutWeightCount + OutputCount : 0;
+    public int ParameterCount => _circuitCount + ReadoutParameterCount;
+    public bool TrainableReadout => _fixedReadout is null;
     public Parameter Weights => _weights;
 
     /// <summary>Hardware circuit executions one input row's gradient would cost (parameter shift × measurement settings).</summary>
@@ -74,6 +84,7 @@ public sealed class QuantumLayer : nn.Module<Tensor, Tensor>
     public Tensor Forward(Tensor input) => QuantumLayerFunction.apply(input, _weights, this);
 
     private double[] _gradBuffer = [];
+    private double[]? _readoutGradSink; // discarded read-out gradients of a fixed read-out
 
     /// <summary>Reusable buffer for the gradient with respect to the expectations (grows, never shrinks).</summary>
     internal Span<double> GradientBuffer(int length)
@@ -84,12 +95,17 @@ public sealed class QuantumLayer : nn.Module<Tensor, Tensor>
 
     /// <summary>
     /// Read-out backward for a batch: writes ∂L/∂(readout weights, biases) into <paramref name="gradReadout"/>
-    /// (same layout as the parameters) and ∂L/∂E into <paramref name="gradExpectations"/>.
+    /// (same layout as the parameters; empty and untouched for a fixed read-out) and ∂L/∂E into <paramref name="gradExpectations"/>.
     /// </summary>
     internal void ReadoutBackward(ReadOnlySpan<double> readout, ReadOnlySpan<double> expectations, ReadOnlySpan<double> gradOutput, int batch,
         Span<double> gradReadout, Span<double> gradExpectations)
     {
         int nObs = Observables.Count, a = OutputCount;
+        if (_fixedReadout is not null)
+        {
+            readout = _fixedReadout;
+            gradReadout = _readoutGradSink ??= new double[_fixedReadout.Length];
+        }
         var w = readout[.._readoutWeightCount];
         var gw = gradReadout[.._readoutWeightCount];
         var gb = gradReadout.Slice(_readoutWeightCount, a);
@@ -123,9 +139,13 @@ public sealed class QuantumLayer : nn.Module<Tensor, Tensor>
         }
     }
 
-    /// <summary>Expectations → outputs for one row with read-out parameters from <paramref name="readout"/> (weights then biases).</summary>
+    /// <summary>
+    /// Expectations → outputs for one row with read-out parameters from <paramref name="readout"/> (weights then biases;
+    /// ignored, and may be empty, for a fixed read-out).
+    /// </summary>
     internal void ReadoutRow(ReadOnlySpan<double> readout, ReadOnlySpan<double> expectations, Span<double> output)
     {
+        if (_fixedReadout is not null) readout = _fixedReadout;
         var w = readout[.._readoutWeightCount];
         var b = readout.Slice(_readoutWeightCount, OutputCount);
         int nObs = Observables.Count;

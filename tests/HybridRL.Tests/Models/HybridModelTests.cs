@@ -10,10 +10,10 @@ namespace HybridRL.Tests.Models;
 public class HybridModelTests
 {
     private static ModelSettings Settings(CompressorKind kind, ReadoutKind readout = ReadoutKind.PerAction, int qubits = 3, int layers = 2,
-        GradientMethod gradient = GradientMethod.Auto) => new()
+        GradientMethod gradient = GradientMethod.Auto, bool trainableReadout = true) => new()
     {
         Compressor = new CompressorSettings { Kind = kind, BondDimension = 3, Hidden = [5] },
-        Circuit = new CircuitSettings { Qubits = qubits, Layers = layers, Readout = readout, InputSquash = HybridRL.Quantum.Circuits.InputSquash.Arctan },
+        Circuit = new CircuitSettings { Qubits = qubits, Layers = layers, Readout = readout, InputSquash = HybridRL.Quantum.Circuits.InputSquash.Arctan, TrainableReadout = trainableReadout },
         Simulation = new SimulationSettings { Gradient = gradient },
     };
 
@@ -24,14 +24,16 @@ public class HybridModelTests
     }
 
     [Theory]
-    [InlineData(CompressorKind.Mps, ReadoutKind.PerAction)]
-    [InlineData(CompressorKind.Dense, ReadoutKind.Linear)]
-    [InlineData(CompressorKind.None, ReadoutKind.Linear)]
-    public void WholeModelGradientMatchesCentralFiniteDifferences(CompressorKind kind, ReadoutKind readout)
+    [InlineData(CompressorKind.Mps, ReadoutKind.PerAction, true)]
+    [InlineData(CompressorKind.Dense, ReadoutKind.Linear, true)]
+    [InlineData(CompressorKind.None, ReadoutKind.Linear, true)]
+    [InlineData(CompressorKind.Dense, ReadoutKind.Linear, false)]
+    [InlineData(CompressorKind.None, ReadoutKind.PerAction, false)]
+    public void WholeModelGradientMatchesCentralFiniteDifferences(CompressorKind kind, ReadoutKind readout, bool trainableReadout)
     {
         TorchRuntime.EnsureLoaded();
         int obs = kind == CompressorKind.None ? 3 : 7;
-        using var model = (HybridModel)ModelFactory.Create(Settings(kind, readout), obs, 2, 17);
+        using var model = (HybridModel)ModelFactory.Create(Settings(kind, readout, trainableReadout: trainableReadout), obs, 2, 17);
         const int batch = 3;
         var x = Uniform(batch * obs, 3);
         var g = Uniform(batch * 2, 4);
@@ -139,6 +141,43 @@ public class HybridModelTests
             Assert.Equal(gb[a], gotWeights[pc + 2 + a], 14);
         }
         for (int i = 0; i < gIn.Length; i++) Assert.Equal(gIn[i], gotInputs[i], 14);
+    }
+
+    [Fact]
+    public void FixedReadoutHasNoParametersAndPassesTheExpectationsThrough()
+    {
+        TorchRuntime.EnsureLoaded();
+        using var model = (HybridModel)ModelFactory.Create(Settings(CompressorKind.None, ReadoutKind.PerAction, gradient: GradientMethod.Adjoint, trainableReadout: false), 3, 2, 21);
+        using var trained = (HybridModel)ModelFactory.Create(Settings(CompressorKind.None, ReadoutKind.PerAction, gradient: GradientMethod.Adjoint), 3, 2, 21);
+        var layer = model.QuantumLayer;
+        var ev = layer.Evaluator;
+        // Same seed, same circuit: the fixed model is the trainable one without its 2 weights and 2 biases.
+        Assert.Equal(0, model.ParameterCounts["readout"]);
+        Assert.Equal(trained.ParameterCount - 4, model.ParameterCount);
+        Assert.Equal(ev.ParameterCount, layer.ParameterCount);
+        const int batch = 4;
+        var x = Uniform(batch * 3, 41);
+        var g = Uniform(batch * 2, 42);
+        using var xt = tensor(x, [batch, 3], dtype: float64).requires_grad_(true);
+        using var y = layer.Forward(xt);
+        using (var loss = (y * tensor(g, [batch, 2], dtype: float64)).sum()) loss.backward();
+        // per_action with w = 1, b = 0: out_a = ⟨Z_a⟩ exactly, and ∂L/∂E = g, so the layer's gradient is the engine's VJP of g.
+        var theta = HybridRLTestAccess.Flat(layer.Weights);
+        var e = new double[batch * 2];
+        ev.Forward(x, theta, batch, false, e);
+        Assert.Equal(e, HybridRLTestAccess.Flat(y));
+        var gTheta = new double[ev.ParameterCount];
+        var gIn = new double[batch * 3];
+        ev.Backward(x, theta, batch, false, g, gTheta, gIn);
+        Assert.Equal(gTheta, HybridRLTestAccess.Flat(layer.Weights.grad!));
+        Assert.Equal(gIn, HybridRLTestAccess.Flat(xt.grad!));
+        // the population path agrees with the single-row path without read-out parameters
+        var single = new double[2];
+        var population = new double[2];
+        model.ForwardNoGrad(x.AsSpan(0, 3), 1, single);
+        model.PopulationForward(theta, x.AsSpan(0, 3), 1, population);
+        Assert.Equal(single, population);
+        Assert.Equal(e.AsSpan(0, 2).ToArray(), single);
     }
 
     [Fact]

@@ -106,7 +106,7 @@ public static class ConfigKeyTable
             s => s.Model.Circuit!.TrainableInputScaling, Hybrid, When("model.circuit.encoding", "angle", "reuploading", "product_zz")),
         Choice("model.circuit.readout", ReadoutKind.PerAction, "per_action = ⟨Z⟩ of qubit a is the value of action a; linear = trainable linear map from all ⟨Z⟩ to action values.",
             s => s.Model.Circuit!.Readout, Hybrid),
-        Bool("model.circuit.trainable_output_weights", true, "Learn the read-out weights (for per_action: one scale per action).",
+        Bool("model.circuit.trainable_output_weights", true, "Learn the read-out (per_action: a scale and a bias per action; linear: W and b). false keeps it at its initial values (per_action: value of action a = ⟨Z_a⟩) with no parameters, so no per-action bias can favour some actions everywhere.",
             s => s.Model.Circuit!.TrainableOutputWeights, Hybrid),
 
         Choice("model.simulation.mode", SimulationMode.Exact, "exact = state vector with exact expectations; shots = state vector sampled with shots; density_matrix = noisy mixed-state simulation; trajectories = noisy Monte-Carlo state vectors.",
