@@ -37,6 +37,7 @@ public sealed class EvolutionGridLearningTests
             rotations: [ry, rz]
             entangler: ring
             readout: per_action
+            trainable_output_weights: false
           simulation:
             mode: exact
             threads: 1
@@ -53,13 +54,19 @@ public sealed class EvolutionGridLearningTests
     };
 
     // Not yet passing. Training uses exploring starts (start: random) and genetic search re-evaluates its elites on
-    // elite_episodes extra episodes; the score is the exact return from the map's start cell. Seen while tuning
-    // (seeds 1-3, 40-80 generations, 16-128 episodes per member): every method mostly settles on policy 11112222111
-    // (0.385 of 0.576, ratio 0.67); the best runs reach 12212112122 / 12112211121 (0.540, ratio 0.938: from the cell
-    // below the start it steps east, 0.1 into a hatch, instead of north) — just outside 5%. Only 16 of the 61 440
-    // terminating policies are within 5% (exhaustive policy evaluation), and they need the slow, safe moves in
-    // cells 3 and 9. With σ ≤ 0.3 every member of a generation has the same greedy policy as the initial vector
-    // (all east), so fitness is flat and the search does not move; with σ ≥ 1 the centre ends on a poor policy.
+    // elite_episodes extra episodes; the score is the exact return from the map's start cell. The runs settle on
+    // 12212112122-like policies (0.540 of 0.576, ratio 0.938) that differ from the optimum 12202010120 only in cell 3
+    // (east, 0.1 into a hatch, instead of back north: Q* 0.430 against 0.568), or on 11112222111 (ratio 0.669).
+    // Findings (seeds 1-8, 60-1000 generations, 16-512 episodes per member, σ 0.05-2, populations 24-128):
+    // - With a trainable read-out the search first learns per-action biases that favour east and south everywhere;
+    //   model.circuit.trainable_output_weights: false removes that shortcut, and north/west reappear in policies.
+    // - The shared circuit still learns to suppress north globally: on a trained dense-compressor model (one-hot
+    //   input, so cell 3 has its own 4 features) no value of cell 3's features within ±4 yields north (2000 draws).
+    //   Escaping needs a coordinated change of the circuit and every cell's features, which no method finds reliably.
+    // - Best settings seen: genetic, σ 0.1, dense compressor, fixed read-out, 200 generations: 4 of 8 seeds;
+    //   CMA-ES, fixed read-out, 1000 generations: 2 of 4; evolution strategies: at most 1 of 4. More episodes per
+    //   member do not help (CMA-ES on a plain network with 256 episodes: 0 of 4, with 64: 1 of 3); more
+    //   generations do. A plain network (model.kind: classical) reaches the optimum for 3 of 4 seeds with CMA-ES in 200 generations.
     // Skipped so the suite stays green.
     [Theory(Skip = "evolution does not yet reach 5% of optimal on dock-3x4 for most seeds; see comment")]
     [MemberData(nameof(Methods))]
