@@ -73,7 +73,7 @@ public static class TrainingBenchmark
         }
 
         // Evolution: the same generations (same seed, so the same work) with 1 and with 2 workers.
-        int generations = quick ? 1 : 4;
+        int generations = quick ? 1 : 20;
         double t1 = TimeEvolution(envSettings, 1, generations, out long episodes1);
         double t2 = TimeEvolution(envSettings, 2, generations, out long episodes2);
         if (episodes1 != episodes2) throw new InvalidOperationException($"evolution did different work with 1 and 2 workers ({episodes1} vs {episodes2} episodes)");
