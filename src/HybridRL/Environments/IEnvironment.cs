@@ -25,6 +25,12 @@ public interface IEnvironment : IDisposable
     /// <summary>Index of the current discrete state in [0, StateCount) when tabular; -1 otherwise.</summary>
     int StateIndex { get; }
 
+    /// <summary>
+    /// True when the observation is a fixed function of <see cref="StateIndex"/> (a tabular task whose observation carries
+    /// nothing else, such as a step count); then a deterministic policy's action may be cached per state.
+    /// </summary>
+    bool ObservationIsFunctionOfState => false;
+
     /// <summary>True when <see cref="SaveState"/>/<see cref="LoadState"/> can reproduce the exact state.</summary>
     bool SupportsStateSave { get; }
 

@@ -44,6 +44,7 @@ public sealed class SlipperyWarehouseEnvironment : IEnvironment
     public bool ObservationIsBinary => _settings.Observation is GridObservation.OneHot or GridObservation.Binary;
     public int StateCount => _map.StateCount;
     public int StateIndex => _state;
+    public bool ObservationIsFunctionOfState => true;
     public bool SupportsStateSave => true;
     public int StepCount => _steps;
 

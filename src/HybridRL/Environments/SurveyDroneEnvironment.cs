@@ -39,6 +39,7 @@ public sealed class SurveyDroneEnvironment : IEnvironment
     public bool ObservationIsBinary => true;
     public int StateCount => _map.StateCount;
     public int StateIndex => _state;
+    public bool ObservationIsFunctionOfState => true;
     public bool SupportsStateSave => true;
     public int StepCount => _steps;
 

@@ -37,6 +37,7 @@ public sealed class ClassicalModel : nn.Module<Tensor, Tensor>, IAgentModel
     public int ParameterCount => _network.ParameterCount;
     public IReadOnlyDictionary<string, int> ParameterCounts => _counts;
     public DenseNetwork Network => _network;
+    public bool DeterministicOutputs => true;
     public ExecutionCounters? Counters => null;
     public long HardwareExecutionsPerGradientRow => 0;
 

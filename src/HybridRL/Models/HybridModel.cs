@@ -70,6 +70,7 @@ public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel, ISimul
         _counts["circuit"] = CircuitDesign.RotationParameterCount;
         _counts["readout"] = _layer.ReadoutParameterCount;
         ParameterCount = _compressorCount + _layer.ParameterCount;
+        DeterministicOutputs = options.Shots == 0 && options.Mode is SimulationMode.StateVector or SimulationMode.DensityMatrix;
         _scratch = new double[_compressor?.ScratchSize ?? 0];
     }
 
@@ -121,6 +122,7 @@ public sealed class HybridModel : nn.Module<Tensor, Tensor>, IAgentModel, ISimul
     public QuantumLayer QuantumLayer => _layer;
     /// <summary>The compressor module (MpsCompressor or DenseNetwork), or null.</summary>
     public nn.Module? Compressor => (nn.Module?)_compressor;
+    public bool DeterministicOutputs { get; }
     public ExecutionCounters? Counters => _layer.Evaluator.Counters;
     public long HardwareExecutionsPerGradientRow => _layer.HardwareExecutionsPerGradientRow;
 

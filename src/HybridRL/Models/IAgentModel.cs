@@ -36,6 +36,12 @@ public interface IAgentModel : IDisposable
     /// </summary>
     void PopulationForward(ReadOnlySpan<double> flatParametersPerMember, ReadOnlySpan<double> observationsPerMember, int members, Span<double> outputs);
 
+    /// <summary>
+    /// True when the outputs are a fixed function of the parameters and the observation (no shot or trajectory sampling),
+    /// so a greedy action computed once may be reused for the same observation under the same parameters.
+    /// </summary>
+    bool DeterministicOutputs { get; }
+
     /// <summary>Circuit executions and shots so far; null for classical models.</summary>
     ExecutionCounters? Counters { get; }
 

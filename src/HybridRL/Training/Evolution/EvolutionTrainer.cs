@@ -12,7 +12,9 @@ namespace HybridRL.Training.Evolution;
 /// circuit evaluation per time step). Each member's fitness lands in its own slot, so results
 /// are independent of the number of threads. Members the strategy flags in
 /// <see cref="IEvolutionStrategy.ExtraEpisodes"/> (genetic search's elites) run that many further episodes on
-/// seeds of their own; a member's fitness is the mean return over all of its episodes.
+/// seeds of their own; a member's fitness is the mean return over all of its episodes. On tabular tasks with
+/// deterministic model outputs (exact simulation) each member's greedy action is computed once per state and
+/// generation and then reused, so only those circuit executions are run (and counted).
 /// </summary>
 public sealed class EvolutionTrainer : ITrainer
 {
@@ -212,9 +214,13 @@ public sealed class EvolutionTrainer : ITrainer
     {
         private readonly int _start, _count;
         private readonly IEnvironment[] _envs;
-        private readonly int[] _active, _round;
-        private readonly double[] _obs, _params, _q, _returns, _sums;
+        private readonly int[] _active, _round, _chosen, _pending;
+        private readonly double[] _obs, _params, _q, _returns, _sums, _pendingObs;
         private readonly int _obsSize, _actions;
+        // Greedy action of each member per discrete state, −1 until computed in this generation; null unless the
+        // environment's observation is a function of its state index and the model's outputs are deterministic.
+        private readonly int[]? _actionCache;
+        private readonly int _states;
 
         public Slice(int start, int count, Func<IEnvironment> envFactory, IAgentModel model)
         {
@@ -232,6 +238,11 @@ public sealed class EvolutionTrainer : ITrainer
             _returns = new double[count];
             _sums = new double[count];
             _round = new int[count];
+            _chosen = new int[count];
+            _pending = new int[count];
+            _states = count > 0 && model.DeterministicOutputs && _envs[0].ObservationIsFunctionOfState ? Math.Max(0, _envs[0].StateCount) : 0;
+            _actionCache = _states > 0 ? new int[count * _states] : null;
+            _pendingObs = _actionCache is null ? [] : new double[count * _obsSize];
         }
 
         public IAgentModel Model { get; }
@@ -245,6 +256,7 @@ public sealed class EvolutionTrainer : ITrainer
         {
             if (_count == 0) return;
             for (int i = 0; i < _count; i++) _sums[i] = 0;
+            _actionCache?.AsSpan().Fill(-1); // new parameters this generation
             for (int e = 0; e < rounds; e++)
             {
                 ulong seed = seeds[e];
@@ -260,20 +272,12 @@ public sealed class EvolutionTrainer : ITrainer
                 for (int k = 0; k < taking; k++) _round[k] = _active[k];
                 while (active > 0)
                 {
-                    // Row k of the observation buffer always holds member _active[k] (kept by the compaction below);
-                    // gather the matching parameter rows.
-                    for (int k = 0; k < active; k++)
-                    {
-                        int i = _active[k];
-                        population.AsSpan((_start + i) * dim, dim).CopyTo(_params.AsSpan(k * dim, dim));
-                    }
-                    Model.PopulationForward(_params.AsSpan(0, active * dim), _obs.AsSpan(0, active * _obsSize), active, _q.AsSpan(0, active * _actions));
+                    ChooseActions(population, dim, active);
                     int stillActive = 0;
                     for (int k = 0; k < active; k++)
                     {
                         int i = _active[k];
-                        int a = BellmanTargets.ArgMax(_q.AsSpan(k * _actions, _actions));
-                        var r = _envs[i].Step(a, _obs.AsSpan(k * _obsSize, _obsSize));
+                        var r = _envs[i].Step(_chosen[k], _obs.AsSpan(k * _obsSize, _obsSize));
                         steps[_start + i]++;
                         _returns[i] += r.Reward;
                         if (r.Terminal || r.Truncated) continue;
@@ -285,6 +289,44 @@ public sealed class EvolutionTrainer : ITrainer
                 for (int k = 0; k < taking; k++) _sums[_round[k]] += _returns[_round[k]];
             }
             for (int i = 0; i < _count; i++) fitness[_start + i] = _sums[i] / (baseEpisodes + extra[_start + i]);
+        }
+
+        /// <summary>
+        /// Greedy action of each active member into <c>_chosen</c>, by one batched forward over the rows that need it.
+        /// Row k of the observation buffer always holds member _active[k] (kept by the compaction in the caller). With the
+        /// action cache, a member's action in a state it has met before in this generation is reused (identical, since
+        /// the outputs are deterministic) and only new (member, state) pairs are evaluated.
+        /// </summary>
+        private void ChooseActions(double[] population, int dim, int active)
+        {
+            if (_actionCache is null)
+            {
+                for (int k = 0; k < active; k++)
+                    population.AsSpan((_start + _active[k]) * dim, dim).CopyTo(_params.AsSpan(k * dim, dim));
+                Model.PopulationForward(_params.AsSpan(0, active * dim), _obs.AsSpan(0, active * _obsSize), active, _q.AsSpan(0, active * _actions));
+                for (int k = 0; k < active; k++) _chosen[k] = BellmanTargets.ArgMax(_q.AsSpan(k * _actions, _actions));
+                return;
+            }
+            int pending = 0;
+            for (int k = 0; k < active; k++)
+            {
+                int i = _active[k];
+                int cached = _actionCache[i * _states + _envs[i].StateIndex];
+                _chosen[k] = cached;
+                if (cached >= 0) continue;
+                population.AsSpan((_start + i) * dim, dim).CopyTo(_params.AsSpan(pending * dim, dim));
+                _obs.AsSpan(k * _obsSize, _obsSize).CopyTo(_pendingObs.AsSpan(pending * _obsSize, _obsSize));
+                _pending[pending++] = k;
+            }
+            if (pending == 0) return;
+            Model.PopulationForward(_params.AsSpan(0, pending * dim), _pendingObs.AsSpan(0, pending * _obsSize), pending, _q.AsSpan(0, pending * _actions));
+            for (int j = 0; j < pending; j++)
+            {
+                int k = _pending[j], i = _active[k];
+                int a = BellmanTargets.ArgMax(_q.AsSpan(j * _actions, _actions));
+                _chosen[k] = a;
+                _actionCache[i * _states + _envs[i].StateIndex] = a;
+            }
         }
     }
 }
