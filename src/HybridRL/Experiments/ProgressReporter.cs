@@ -17,6 +17,7 @@ public sealed class ProgressReporter
     private readonly Stopwatch _clock = Stopwatch.StartNew();
     private double _lastDraw = double.NegativeInfinity;
     private long _stepsAtStart = -1;
+    private double _secondsAtStart;
     private bool _drewLive;
 
     public ProgressReporter(TextWriter output, bool liveTerminal, double plainEverySeconds)
@@ -38,8 +39,10 @@ public sealed class ProgressReporter
         if (!force && now - _lastDraw < every) return;
         _lastDraw = now;
         var c = trainer.Counters;
-        if (_stepsAtStart < 0) _stepsAtStart = c.EnvSteps;
-        double rate = now > 0 ? (c.EnvSteps - _stepsAtStart) / now : 0;
+        if (_stepsAtStart < 0) (_stepsAtStart, _secondsAtStart) = (c.EnvSteps, now);
+        // Steps since the first report of this process (a resumed run counts from the resume); "-" until some are done.
+        string rate = now > _secondsAtStart && c.EnvSteps > _stepsAtStart
+            ? ((c.EnvSteps - _stepsAtStart) / (now - _secondsAtStart)).ToString("0", CultureInfo.InvariantCulture) : "-";
         var row = trainer.Metrics(MetricsRow.FromCounters(c, trainer.ParameterCount));
         string ret = row.TrainReturn is double r ? r.ToString("0.###", CultureInfo.InvariantCulture) : "-";
         string eval = row.EvalReturn is double e ? e.ToString("0.###", CultureInfo.InvariantCulture) : "-";
@@ -47,7 +50,7 @@ public sealed class ProgressReporter
         double elapsedFraction = progress;
         string eta = elapsedFraction > 0.001 && elapsedFraction < 1 ? FormatSeconds(now / elapsedFraction * (1 - elapsedFraction)) : "-";
         string text = string.Create(CultureInfo.InvariantCulture,
-            $"steps {c.EnvSteps} | episodes {c.Episodes}{(c.Generations > 0 ? $" | gen {c.Generations}" : "")} | return {ret} | eval {eval} | {explore} | {rate:0} steps/s | ETA {eta}");
+            $"steps {c.EnvSteps} | episodes {c.Episodes}{(c.Generations > 0 ? $" | gen {c.Generations}" : "")} | return {ret} | eval {eval} | {explore} | {rate} steps/s | ETA {eta}");
         if (_live)
         {
             const int width = 24;

@@ -155,7 +155,7 @@ public sealed class TrainingSession
             }
             var summary = Summarise(components, sink.BestEvaluation);
             AtomicFile.WriteAllText(_folder.SummaryPath, summary.ToJson());
-            log.Information("finished: final greedy return {Final} over {Episodes} episodes; best evaluation {Best}; {Steps} steps in {Seconds:0.0} s",
+            log.Information("finished: final greedy return {Final:0.####} over {Episodes} episodes; best evaluation {Best:0.####}; {Steps} steps in {Seconds:0.0} s",
                 summary.FinalReturn, summary.FinalEvalEpisodes, summary.BestReturn, summary.EnvSteps, summary.WallSeconds);
             _out.WriteLine($"summary: {_folder.SummaryPath}");
             return ExitCodes.Done;
