@@ -35,7 +35,8 @@ public static class CommandRunner
             Console.Error.WriteLine($"error: {ex.Message}");
             return ExitCodes.InvalidInput;
         }
-        catch (Exception ex) when (ex is TorchUnavailableException or CheckpointCorruptException or InvalidDataException or RunLockedException or ExecutorException)
+        catch (Exception ex) when (ex is TorchUnavailableException or CheckpointCorruptException or InvalidDataException or RunLockedException or ExecutorException
+            or ExternalEnvironmentException)
         {
             Console.Error.WriteLine($"error: {ex.Message}");
             return ExitCodes.Failure;

@@ -1,6 +1,7 @@
 using System.Text.Json;
 using HybridRL.Analysis.Ledger;
 using HybridRL.Checkpoints;
+using HybridRL.Environments;
 using HybridRL.Experiments.Config;
 using HybridRL.Experiments.Runs;
 using HybridRL.Logging;
@@ -140,8 +141,9 @@ public sealed class TrainingSession
             {
                 outcome = loop.Run(cancel);
             }
-            catch (DivergenceException ex)
+            catch (Exception ex) when (ex is DivergenceException or ExternalEnvironmentException)
             {
+                // The run stops where it is; checkpoints already written stay as they are (resume continues from the newest).
                 progress.Finish();
                 log.Error("{Message}", ex.Message);
                 WriteFailed(ex.Message);
