@@ -141,9 +141,10 @@ public sealed class TrainingSession
             {
                 outcome = loop.Run(cancel);
             }
-            catch (Exception ex) when (ex is DivergenceException or ExternalEnvironmentException)
+            catch (Exception ex) when (ex is DivergenceException or ExternalEnvironmentException or NotSupportedException)
             {
                 // The run stops where it is; checkpoints already written stay as they are (resume continues from the newest).
+                // NotSupportedException: an environment that cannot save its state (a bridged child that is not deterministic).
                 progress.Finish();
                 log.Error("{Message}", ex.Message);
                 WriteFailed(ex.Message);
