@@ -181,6 +181,42 @@ public sealed class ExternalEnvironmentTests : IDisposable
     }
 
     [Fact]
+    public void Deep_q_run_on_a_child_that_is_not_deterministic_stops_at_its_first_checkpoint_with_the_reason()
+    {
+        string script = Script("undeclared", "print(json.dumps({'observation': [0.0, 0.5, 1.0], 'reward': 0.0, 'terminal': False}), flush=True)");
+        File.WriteAllText(script["python3 ".Length..], File.ReadAllText(script["python3 ".Length..]).Replace("\"deterministic\": True", "\"deterministic\": False"));
+        File.WriteAllText(_dir.Combine("run.yaml"), $"""
+            experiment:
+              name: undeclared
+              budget:
+                env_steps: 200
+            environment:
+              kind: external
+              command: {script}
+            model:
+              kind: classical
+              classical:
+                hidden_sizes: [4]
+            trainer:
+              kind: dqn
+              dqn:
+                warmup_steps: 20
+                batch_size: 8
+                eval_every: 0
+            logging:
+              checkpoint_every_steps: 50
+              final_eval_episodes: 0
+            """);
+        var (code, stdout, stderr) = CliProcess.Run(["train", _dir.Combine("run.yaml"), "--runs-dir", _dir.Combine("runs"), "--run-id", "r1"], TimeSpan.FromMinutes(2));
+        string output = stdout + stderr;
+        Assert.True(code == 1, $"exit code {code}\n{output}");
+        Assert.Contains("cannot checkpoint this deep-Q run: environment 'external' cannot save its state mid-episode", output);
+        Assert.Contains("\"deterministic\": true", output);
+        Assert.DoesNotContain("unexpected failure", output);
+        Assert.True(File.Exists(_dir.Combine("runs", "undeclared", "r1", "failed.json")));
+    }
+
+    [Fact]
     public void Training_run_whose_child_dies_exits_1_with_a_clear_message_and_keeps_its_checkpoints()
     {
         // Counts steps over all episodes and dies at step 230: after the checkpoints at 50 … 200.

@@ -219,6 +219,10 @@ public sealed class DeepQTrainer : ITrainer
 
     public void Save(Action<string, Action<BinaryWriter>> addSection)
     {
+        // A deep-Q checkpoint holds the environment mid-episode; say so before any section is written.
+        if (!_env.SupportsStateSave)
+            throw new NotSupportedException($"cannot checkpoint this deep-Q run: environment '{_env.Name}' cannot save its state mid-episode " +
+                "(a bridged child must declare \"deterministic\": true in its handshake; see examples/bridge/PROTOCOL.md)");
         addSection("counters", Counters.Save);
         addSection("model.online", w => WriteDoubles(w, Flat(_online, _flatOnline)));
         addSection("model.target", w => WriteDoubles(w, Flat(_target, _flatTarget)));
