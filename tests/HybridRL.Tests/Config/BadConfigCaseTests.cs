@@ -1,3 +1,4 @@
+using HybridRL.Experiments;
 using HybridRL.Experiments.Config;
 
 namespace HybridRL.Tests.Config;
@@ -16,7 +17,9 @@ public sealed class BadConfigCaseTests
     public void Each_malformed_file_fails_with_its_specific_message(string name)
     {
         var c = BadConfigCase.Parse(Path.Combine(ConfigTestPaths.BadCasesFolder, name));
-        var ex = Assert.Throws<ConfigException>(() => ExperimentSpecLoader.Load([c.File], c.Sets, new Dictionary<string, string>(c.Environment), null));
+        // With the environment layer's validator, as the CLI plugs it in (CommandRunner), so cases that depend on the
+        // environment's parameters or shape (e.g. its observation size) fail here too.
+        var ex = Assert.Throws<ConfigException>(() => ExperimentSpecLoader.Load([c.File], c.Sets, new Dictionary<string, string>(c.Environment), new EnvironmentKeyValidator()));
         var match = ex.Errors.FirstOrDefault(e => e.Message.Contains(c.Expect, StringComparison.Ordinal));
         Assert.True(match is not null, $"{name}: no error contains \"{c.Expect}\"; got:{Environment.NewLine}{ex.Message}");
         if (c.Key is not null) Assert.Equal(c.Key, match!.Key);

@@ -5,8 +5,8 @@ using HybridRL.Tests.Support;
 namespace HybridRL.Tests.Resume;
 
 /// <summary>
-/// SIGTERM and SIGUSR1 make a running `hybridrl train` write a checkpoint and exit 3 within 5 s; a second SIGINT
-/// exits at once (130) and leaves the previous checkpoints valid.
+/// SIGTERM, SIGUSR1 and a single SIGINT make a running `hybridrl train` write a checkpoint and exit 3 within 5 s; a
+/// second SIGINT exits at once (130) and leaves the previous checkpoints valid.
 /// </summary>
 public sealed class InterruptSignalTests
 {
@@ -15,6 +15,7 @@ public sealed class InterruptSignalTests
     [Theory]
     [InlineData(15)] // SIGTERM
     [InlineData(10)] // SIGUSR1 (Linux numbering)
+    [InlineData(2)]  // SIGINT, once (InterruptSignals: the first interrupt cancels like SIGTERM; only a second exits with 130)
     public void SignalWritesALoadableCheckpointAndExitsThree(int signal)
     {
         var scenario = ResumeScenario.For("dqn").With(LongRun);
