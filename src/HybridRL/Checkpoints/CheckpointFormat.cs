@@ -12,7 +12,7 @@ public static class CheckpointFormat
     public const string MagicText = "HRL-CKPT";
 
     /// <summary>The format version this program writes and the newest it can read.</summary>
-    public const int CurrentVersion = 1;
+    public const int CurrentVersion = 2;
 
     /// <summary>File extension of a checkpoint file, with the dot.</summary>
     public const string Extension = ".hrlc";

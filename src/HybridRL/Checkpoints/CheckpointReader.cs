@@ -108,8 +108,9 @@ public sealed class CheckpointReader : IDisposable
         if (!small[..8].SequenceEqual(CheckpointFormat.Magic))
             throw new CheckpointCorruptException(path, "header", 0, $"bad magic bytes {Convert.ToHexString(small[..8])} (expected \"{CheckpointFormat.MagicText}\"): not a HybridRL checkpoint");
         uint version = BinaryPrimitives.ReadUInt32LittleEndian(small[8..]);
-        if (version == 0 || version > CheckpointFormat.CurrentVersion)
-            throw new CheckpointCorruptException(path, "header", 8, $"format version {version} is not supported (this program reads versions 1..{CheckpointFormat.CurrentVersion})");
+        // Version 1 (earlier builds) had the same layout with XxHash3 checksums; its files cannot be verified here.
+        if (version != CheckpointFormat.CurrentVersion)
+            throw new CheckpointCorruptException(path, "header", 8, $"format version {version} is not supported (this program reads version {CheckpointFormat.CurrentVersion}{(version == 1 ? "; version 1 files come from an earlier build, whose checksums were XxHash3" : "")})");
         uint bodyLength = BinaryPrimitives.ReadUInt32LittleEndian(small[12..]);
         if (bodyLength > CheckpointFormat.MaxHeaderBodySize)
             throw new CheckpointCorruptException(path, "header", 12, $"header length {bodyLength} exceeds the limit of {CheckpointFormat.MaxHeaderBodySize} bytes");
@@ -121,18 +122,18 @@ public sealed class CheckpointReader : IDisposable
         ReadExact(path, handle, headerBytes, 0, "header", fileLength);
         ReadExact(path, handle, small[..8], headerBytes.Length, "header", fileLength);
         ulong storedHeaderHash = BinaryPrimitives.ReadUInt64LittleEndian(small);
-        ulong headerHash = XxHash3.HashToUInt64(headerBytes);
+        ulong headerHash = XxHash64.HashToUInt64(headerBytes);
         if (storedHeaderHash != headerHash)
             throw new CheckpointCorruptException(path, "header", 0, "header checksum mismatch", storedHeaderHash, headerHash);
         var header = DecodeHeaderBody(path, headerBytes.AsSpan(CheckpointFormat.PrefixSize), (int)version);
 
-        var chain = new XxHash3();
+        var chain = new XxHash64();
         chain.Append(small[..8]);
 
         // sections, then footer
         var sections = new List<CheckpointSectionInfo>();
         var names = new HashSet<string>(StringComparer.Ordinal);
-        var hash = new XxHash3();
+        var hash = new XxHash64();
         byte[] chunk = ArrayPool<byte>.Shared.Rent(ChunkSize);
         try
         {
@@ -203,7 +204,7 @@ public sealed class CheckpointReader : IDisposable
         }
     }
 
-    private static void ReadFooter(string path, SafeFileHandle handle, long pos, long fileLength, int sectionCount, XxHash3 chain)
+    private static void ReadFooter(string path, SafeFileHandle handle, long pos, long fileLength, int sectionCount, XxHash64 chain)
     {
         if (pos + CheckpointFormat.FooterSize > fileLength)
             throw new CheckpointCorruptException(path, "footer", pos, $"truncated: footer needs {CheckpointFormat.FooterSize} bytes but the file ends at {fileLength}");

@@ -6,7 +6,7 @@ namespace HybridRL.Checkpoints;
 
 /// <summary>
 /// Builds one checkpoint file. Sections are registered as callbacks and run only inside
-/// <see cref="Save"/>, where each streams straight into the file (and into an incremental XxHash3),
+/// <see cref="Save"/>, where each streams straight into the file (and into an incremental XxHash64),
 /// so a large section such as a replay buffer is never copied into an intermediate buffer.
 /// <para>
 /// Save writes <c>ckpt-&lt;step:D12&gt;.hrlc</c> to a temporary name, flushes it to disk, renames it
@@ -138,16 +138,16 @@ public sealed class CheckpointWriter
         BinaryPrimitives.WriteUInt32LittleEndian(headerBytes.AsSpan(8), (uint)CheckpointFormat.CurrentVersion);
         BinaryPrimitives.WriteUInt32LittleEndian(headerBytes.AsSpan(12), (uint)body.Length);
         body.CopyTo(headerBytes, CheckpointFormat.PrefixSize);
-        ulong headerHash = XxHash3.HashToUInt64(headerBytes);
+        ulong headerHash = XxHash64.HashToUInt64(headerBytes);
         fs.Write(headerBytes);
         BinaryPrimitives.WriteUInt64LittleEndian(scratch, headerHash);
         fs.Write(scratch[..8]);
 
-        var chain = new XxHash3();
+        var chain = new XxHash64();
         chain.Append(scratch[..8]);
 
         // --- sections ---
-        var hash = new XxHash3();
+        var hash = new XxHash64();
         foreach (var (name, nameBytes, write) in _sections)
         {
             fs.Write(CheckpointFormat.SectionMarker);
@@ -174,7 +174,7 @@ public sealed class CheckpointWriter
             }
             long length = section.BytesWritten;
 
-            // checksum = XxHash3-64(payload ‖ name bytes ‖ payload length as u64 LE)
+            // checksum = XxHash64-64(payload ‖ name bytes ‖ payload length as u64 LE)
             hash.Append(nameBytes);
             BinaryPrimitives.WriteUInt64LittleEndian(scratch, (ulong)length);
             hash.Append(scratch[..8]);

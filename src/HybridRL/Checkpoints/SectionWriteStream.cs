@@ -4,16 +4,16 @@ namespace HybridRL.Checkpoints;
 
 /// <summary>
 /// Write-only pass-through stream used while a section is produced: bytes go straight to the
-/// checkpoint file and into an incremental XxHash3 at the same time, so no copy of the section is kept.
+/// checkpoint file and into an incremental XxHash64 at the same time, so no copy of the section is kept.
 /// Disposing it does not close the file.
 /// </summary>
 internal sealed class SectionWriteStream : Stream
 {
     private readonly Stream _inner;
-    private readonly XxHash3 _hash;
+    private readonly XxHash64 _hash;
     private bool _closed;
 
-    public SectionWriteStream(Stream inner, XxHash3 hash)
+    public SectionWriteStream(Stream inner, XxHash64 hash)
     {
         _inner = inner;
         _hash = hash;

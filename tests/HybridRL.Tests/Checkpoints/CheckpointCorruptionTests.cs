@@ -102,15 +102,38 @@ public class CheckpointCorruptionTests
         Assert.Contains("unexpected bytes after the footer", ex.Message);
     }
 
-    [Fact]
-    public void NewerFormatVersionIsRejectedClearly()
+    [Theory]
+    [InlineData(3, "format version 3 is not supported (this program reads version 2)")]
+    [InlineData(1, "version 1 files come from an earlier build, whose checksums were XxHash3")]
+    public void OtherFormatVersionsAreRejectedClearly(byte version, string expected)
     {
         using var tmp = new TempDirectory();
         string path = WriteSmall(tmp.Path);
         byte[] b = File.ReadAllBytes(path);
-        b[8] = 2; // version field (u32 LE at offset 8), see docs/checkpoint-format.md
+        b[8] = version; // version field (u32 LE at offset 8), see docs/checkpoint-format.md
         File.WriteAllBytes(path, b);
         var ex = Assert.Throws<CheckpointCorruptException>(() => CheckpointReader.Open(path).Dispose());
-        Assert.Contains("format version 2 is not supported", ex.Message);
+        Assert.Contains(expected, ex.Message);
+    }
+
+    [Fact]
+    public void SectionChecksumsAreXxHash64AsTheFormatDocumentSays()
+    {
+        // xxHash64 of the empty input with seed 0 is 0xEF46DB3751D8E999 (the reference implementation's value, from memory).
+        Assert.Equal(0xEF46DB3751D8E999UL, System.IO.Hashing.XxHash64.HashToUInt64([]));
+        using var tmp = new TempDirectory();
+        string path = WriteSmall(tmp.Path);
+        byte[] file = File.ReadAllBytes(path);
+        using var reader = CheckpointReader.Open(path);
+        foreach (var section in reader.Sections)
+        {
+            // docs/checkpoint-format.md: section checksum = XxHash64(payload ‖ name bytes ‖ payload length as u64 LE)
+            var payload = file.AsSpan((int)section.PayloadOffset, (int)section.Length);
+            var data = new List<byte>(payload.ToArray());
+            data.AddRange(System.Text.Encoding.UTF8.GetBytes(section.Name));
+            data.AddRange(BitConverter.GetBytes((ulong)section.Length));
+            Assert.True(BitConverter.IsLittleEndian);
+            Assert.Equal(System.IO.Hashing.XxHash64.HashToUInt64(data.ToArray()), section.Checksum);
+        }
     }
 }

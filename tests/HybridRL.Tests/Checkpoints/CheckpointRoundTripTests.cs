@@ -74,7 +74,7 @@ public class CheckpointRoundTripTests
 
         using var r = CheckpointReader.Open(path);
         Assert.Equal(CheckpointFormat.MagicText, r.Header.Magic);
-        Assert.Equal(1, r.Header.FormatVersion);
+        Assert.Equal(2, r.Header.FormatVersion);
         Assert.Equal("deep-q", r.Header.TrainerKind);
         Assert.Equal("a1b2c3d4e5f60718", r.Header.ConfigHash);
         Assert.Equal(created, r.Header.CreatedUtc);
