@@ -4,8 +4,8 @@ namespace HybridRL.Analysis;
 
 /// <summary>
 /// What a finished or partial run left in its folder (<c>runs/&lt;name&gt;/&lt;run-id&gt;/</c>), as read by the analysis:
-/// resolved config.yaml (flattened to dotted keys), metrics.csv, summary.json when present, eval-*.json files and an
-/// optional resources.json. Paths come from <see cref="RunFolder"/>, the writer's layout of the same folder.
+/// resolved config.yaml (flattened to dotted keys), metrics.csv, summary.json when present, eval-*.json files and
+/// resources.json when present (runs started before it was written lack it). Paths come from <see cref="RunFolder"/>, the writer's layout of the same folder.
 /// </summary>
 public sealed class RunRecord
 {
@@ -79,8 +79,7 @@ public sealed class RunRecord
         var metrics = MetricsCsvReader.Read(metricsPath);
         var config = File.Exists(folder.ConfigPath) ? FlatYaml.Load(folder.ConfigPath) : Empty;
         var summary = File.Exists(folder.SummaryPath) ? FlatJson.Load(folder.SummaryPath) : Empty;
-        string resourcesPath = System.IO.Path.Combine(full, "resources.json");
-        var resources = File.Exists(resourcesPath) ? FlatJson.Load(resourcesPath) : Empty;
+        var resources = File.Exists(folder.ResourcesPath) ? FlatJson.Load(folder.ResourcesPath) : Empty;
         var evals = Directory.GetFiles(full, "eval-*.json").OrderBy(f => f, StringComparer.Ordinal)
             .Select(f => new KeyValuePair<string, IReadOnlyDictionary<string, string>>(System.IO.Path.GetFileName(f), FlatJson.Load(f)))
             .ToArray();

@@ -3,6 +3,7 @@ using HybridRL.Analysis.Ledger;
 using HybridRL.Checkpoints;
 using HybridRL.Environments;
 using HybridRL.Experiments.Config;
+using HybridRL.Experiments.Inspection;
 using HybridRL.Experiments.Runs;
 using HybridRL.Logging;
 using HybridRL.Native;
@@ -13,7 +14,7 @@ namespace HybridRL.Experiments;
 
 /// <summary>
 /// One training run in its run folder, from start or from its newest valid checkpoint to the end
-/// of its budget: lock, resolved config, metrics.csv, JSON log, checkpoints, progress, signals,
+/// of its budget: lock, resolved config, resources.json, metrics.csv, JSON log, checkpoints, progress, signals,
 /// final greedy evaluation and summary.json.
 /// </summary>
 public sealed class TrainingSession
@@ -104,6 +105,7 @@ public sealed class TrainingSession
         AtomicFile.WriteAllText(_folder.ConfigPath, _spec.ToAnnotatedYaml());
 
         using var components = ExperimentComponents.Build(_spec);
+        AtomicFile.WriteAllText(_folder.ResourcesPath, RunResources.ToJson(ExperimentInspection.Of(_spec, components)));
         var trainer = components.Trainer;
         byte[]? loopState = null;
         double? bestEvaluation = null;

@@ -12,6 +12,7 @@ public class RunFolderTests
         var f = RunFolder.For("/data/runs", "grid-walk", "grid-walk-0123abcd");
         Assert.Equal(Path.GetFullPath("/data/runs/grid-walk/grid-walk-0123abcd"), f.Root);
         Assert.Equal(Path.Combine(f.Root, "config.yaml"), f.ConfigPath);
+        Assert.Equal(Path.Combine(f.Root, "resources.json"), f.ResourcesPath);
         Assert.Equal(Path.Combine(f.Root, "metrics.csv"), f.MetricsPath);
         Assert.Equal(Path.Combine(f.Root, "log.json"), f.LogPath);
         Assert.Equal(Path.Combine(f.Root, "checkpoints"), f.CheckpointsDir);

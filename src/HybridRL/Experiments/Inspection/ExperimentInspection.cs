@@ -48,6 +48,17 @@ public sealed record ExperimentInspection
         ArgumentNullException.ThrowIfNull(spec);
         TorchRuntime.EnsureLoaded();
         using var components = ExperimentComponents.Describe(spec);
+        return Of(spec, components, includeQasm);
+    }
+
+    /// <summary>
+    /// Inspects <paramref name="spec"/> with components already built from it (a training session's): creates one
+    /// model of the run's seed, and no further environment. The caller keeps ownership of <paramref name="components"/>.
+    /// </summary>
+    public static ExperimentInspection Of(ExperimentSpec spec, ExperimentComponents components, bool includeQasm = false)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        ArgumentNullException.ThrowIfNull(components);
         using var model = components.CreateModel();
 
         CircuitInspection? circuit = null;

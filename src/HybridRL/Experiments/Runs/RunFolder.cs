@@ -2,7 +2,7 @@ namespace HybridRL.Experiments.Runs;
 
 /// <summary>
 /// The paths of one run folder <c>runs/&lt;name&gt;/&lt;run-id&gt;/</c> (see the shared run-folder contract):
-/// config.yaml, metrics.csv, log.json, checkpoints/, summary.json, eval-*.json, run.lock and failed.json.
+/// config.yaml, resources.json, metrics.csv, log.json, checkpoints/, summary.json, eval-*.json, run.lock and failed.json.
 /// </summary>
 public sealed class RunFolder
 {
@@ -22,6 +22,8 @@ public sealed class RunFolder
 
     public string Root { get; }
     public string ConfigPath => Path.Combine(Root, "config.yaml");
+    /// <summary>What the run's model needs (circuit gate counts, depth, executions per update), written when the run starts.</summary>
+    public string ResourcesPath => Path.Combine(Root, "resources.json");
     public string MetricsPath => Path.Combine(Root, "metrics.csv");
     public string LogPath => Path.Combine(Root, "log.json");
     public string CheckpointsDir => Path.Combine(Root, "checkpoints");
