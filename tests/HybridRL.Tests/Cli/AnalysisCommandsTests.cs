@@ -145,6 +145,17 @@ public sealed class AnalysisCommandsTests : IDisposable
         Assert.Matches(@"predicted wall time: [0-9]", stdout);
         Assert.Matches(@"--time=\d\d:\d\d:00", stdout);
         Assert.Contains("linear extrapolation", stdout);
+        Assert.Matches(@"predicted peak memory: [0-9.]+ MiB", stdout);
+        Assert.Matches(@"predicted checkpoint size: [0-9.]+ KiB each", stdout);
+
+        // estimate a sweep: the 20 runs of the optimizers sweep share 4 calibrations (runs differing only by seed share one)
+        (code, stdout, stderr) = Cli("estimate", Path.Combine(RepoRoot, "configs", "optimizers-sweep.yaml"), "--calibration-seconds", "0.5");
+        Assert.True(code == 0, $"estimate sweep exit {code}: {stderr}");
+        Assert.Contains("20 run(s), 4 configuration(s) calibrated", stdout);
+        Assert.Matches(@"kind-dqn_seed-1-[0-9a-f]+ +[0-9]", stdout);  // each run on its own line with its time ("17.6 s", "1m 29s")
+        Assert.Matches(@"total wall time \(one run after another\): [0-9]+(\.[0-9])? ?[ms]", stdout);
+        Assert.Contains("largest peak memory per run", stdout);
+        Assert.Matches(@"suggested Slurm time limit per array task: --time=\d\d:\d\d:00", stdout);
 
         // bad input → exit 2 with a message naming the problem
         (code, _, stderr) = Cli("compare", _dir.Combine("no-such-folder"));
