@@ -8,6 +8,7 @@ using HybridRL.Native;
 using HybridRL.Quantum.Circuits;
 using GradientCost = HybridRL.Quantum.Simulation.GradientCost;
 using HybridRL.Training.DeepQ;
+using HybridRL.Training.Evolution;
 
 namespace HybridRL.Experiments.Inspection;
 
@@ -134,14 +135,13 @@ public sealed record ExperimentInspection
         };
     }
 
-    /// <summary>Model copies a run holds: DQN online + target; evolution one per worker slice + the evaluation model.</summary>
+    /// <summary>Model copies a run holds: DQN online + target; evolution one per population slice + the evaluation model.</summary>
     private static int ModelCopies(ExperimentSpec spec)
     {
         if (spec.Trainer.Kind == TrainerKind.Dqn) return 2;
-        int population = spec.Trainer.Genetic?.Population ?? spec.Trainer.EvolutionStrategies?.Population ?? spec.Trainer.CmaEs?.Population ?? 1;
-        int threads = spec.Model.Simulation?.Threads ?? 0;
-        int workers = threads > 0 ? threads : System.Environment.ProcessorCount;
-        return Math.Clamp(workers, 1, Math.Max(1, population)) + 1;
+        int population = spec.Trainer.Genetic?.Population ?? spec.Trainer.EvolutionStrategies?.Population ?? spec.Trainer.CmaEs?.Population ?? 0;
+        // population 0: CMA-ES picks λ from the dimension (≥ 4 + 3 ln n ≥ SliceCount for the models here); count the full split
+        return (population > 0 ? Math.Min(population, EvolutionTrainer.SliceCount) : EvolutionTrainer.SliceCount) + 1;
     }
 
     private static ExecutionCosts Costs(ExperimentSpec spec, ExperimentComponents components, int settings, int shift, bool adjoint)

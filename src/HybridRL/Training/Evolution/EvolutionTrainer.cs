@@ -7,10 +7,11 @@ namespace HybridRL.Training.Evolution;
 
 /// <summary>
 /// Evolutionary training of any agent model: one unit = one generation. Members are evaluated
-/// greedily on common episode seeds, in parallel slices over cores through the model's
-/// population forward path (all members of a slice step their episodes in lock-step, one batched
-/// circuit evaluation per time step). Each member's fitness lands in its own slot, so results
-/// are independent of the number of threads. Members the strategy flags in
+/// greedily on common episode seeds, in a fixed number of slices (<see cref="SliceCount"/>) spread over
+/// the workers, through the model's population forward path (all members of a slice step their episodes
+/// in lock-step, one batched circuit evaluation per time step). Each member's fitness lands in its own
+/// slot and each slice samples shots from its own stream, so results are independent of the number of
+/// threads, with sampled outputs too. Members the strategy flags in
 /// <see cref="IEvolutionStrategy.ExtraEpisodes"/> (genetic search's elites) run that many further episodes on
 /// seeds of their own; a member's fitness is the mean return over all of its episodes. On tabular tasks with
 /// deterministic model outputs (exact simulation) each member's greedy action is computed once per state and
@@ -22,7 +23,10 @@ public sealed class EvolutionTrainer : ITrainer
     private readonly IEvolutionStrategy _strategy;
     private readonly EvolutionTrainerSettings _s;
     private readonly ulong _rootSeed;
+    /// <summary>Slices the population is split into (fewer when it is smaller); workers take slices as they finish.</summary>
+    public const int SliceCount = 8;
     private readonly Slice[] _slices;
+    private readonly int _workers;
     private readonly IAgentModel _evalModel;
     private readonly IAgentModel[] _models;
     private readonly GreedyEvaluator? _evaluator;
@@ -46,14 +50,23 @@ public sealed class EvolutionTrainer : ITrainer
         _s = settings;
         _rootSeed = rootSeed;
         int lambda = strategy.PopulationSize;
-        int workers = Math.Clamp(settings.EffectiveWorkers, 1, lambda);
-        _slices = new Slice[workers];
+        // A fixed split of the population, whatever the worker count: each slice has its own model, whose engine draws
+        // shot and trajectory samples from a stream of its own, so a member sees the same samples on any worker.
+        int sliceCount = Math.Min(lambda, SliceCount);
+        _workers = Math.Clamp(settings.EffectiveWorkers, 1, sliceCount);
+        _slices = new Slice[sliceCount];
         var models = new List<IAgentModel>();
-        for (int w = 0; w < workers; w++)
+        for (int w = 0; w < sliceCount; w++)
         {
-            int start = (int)((long)lambda * w / workers), end = (int)((long)lambda * (w + 1) / workers);
-            _slices[w] = new Slice(start, end - start, environmentFactory, modelFactory());
-            models.Add(_slices[w].Model);
+            int start = (int)((long)lambda * w / sliceCount), end = (int)((long)lambda * (w + 1) / sliceCount);
+            var model = modelFactory();
+            if (model is ISimulatedModel simulated)
+            {
+                var state = simulated.GetSimulationState();
+                simulated.SetSimulationState(state with { Seed = RandomStream.SeedFor(state.Seed, "population-slice", w) });
+            }
+            _slices[w] = new Slice(start, end - start, environmentFactory, model);
+            models.Add(model);
         }
         _evalModel = modelFactory();
         models.Add(_evalModel);
@@ -106,8 +119,9 @@ public sealed class EvolutionTrainer : ITrainer
 
         Array.Clear(_fitness);
         Array.Clear(_memberSteps);
-        if (_slices.Length == 1) _slices[0].Evaluate(_population, n, _episodeSeeds, rounds, baseEpisodes, _extra, _fitness, _memberSteps);
-        else Parallel.For(0, _slices.Length, new ParallelOptions { MaxDegreeOfParallelism = _slices.Length },
+        if (_workers == 1)
+            foreach (var slice in _slices) slice.Evaluate(_population, n, _episodeSeeds, rounds, baseEpisodes, _extra, _fitness, _memberSteps);
+        else Parallel.For(0, _slices.Length, new ParallelOptions { MaxDegreeOfParallelism = _workers },
             w => _slices[w].Evaluate(_population, n, _episodeSeeds, rounds, baseEpisodes, _extra, _fitness, _memberSteps));
 
         long steps = 0;

@@ -45,6 +45,25 @@ public sealed class ThreadCountDeterminismTests
         Assert.Equal(one.Policy, two.Policy);
     }
 
+    [Theory]
+    [InlineData("shots", "model.simulation.shots=64")]
+    [InlineData("trajectories", "model.simulation.noise.depolarizing=0.02")]
+    public void Evolution_with_sampled_outputs_is_identical_for_one_two_and_three_workers(string mode, string extra)
+    {
+        // Shot and trajectory sampling draw random numbers inside the circuit engine: each member must draw the same ones
+        // whichever worker evaluates it.
+        string yaml = string.Format(Environment, "generations: 4") +
+            "\ntrainer:\n  kind: cma_es\n  cma_es:\n    population: 10\n    episodes_per_member: 2\n    eval_every: 2\n    eval_episodes: 2\nlogging:\n  metrics_every_steps: 1\n";
+        var runs = new[] { 1, 2, 3 }.Select(t => GridTraining.Train(GridTraining.Spec(yaml, $"model.simulation.mode={mode}", extra, $"model.simulation.threads={t}"), 0.99)).ToArray();
+        Assert.Equal(4, runs[0].Rows.Count);
+        Assert.True(runs[0].Rows[^1].Shots > 0 || mode == "trajectories");
+        for (int i = 1; i < runs.Length; i++)
+        {
+            Assert.Equal(GridTraining.WithoutWallClock(runs[0].Rows), GridTraining.WithoutWallClock(runs[i].Rows));
+            Assert.Equal(runs[0].Policy, runs[i].Policy);
+        }
+    }
+
     [Fact]
     public void Deep_q_rows_are_identical_for_one_and_two_simulator_threads()
     {
