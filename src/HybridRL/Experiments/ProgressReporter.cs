@@ -16,6 +16,7 @@ public sealed class ProgressReporter
     private readonly double _plainEverySeconds;
     private readonly Stopwatch _clock = Stopwatch.StartNew();
     private double _lastDraw = double.NegativeInfinity;
+    private double _lastRecord = double.NegativeInfinity;
     private long _stepsAtStart = -1;
     private double _secondsAtStart;
     private bool _drewLive;
@@ -28,16 +29,23 @@ public sealed class ProgressReporter
     }
 
     /// <summary>A reporter for this process's standard error: live bar when it is a terminal.</summary>
-    public static ProgressReporter ForConsole(double plainEverySeconds, bool quiet) =>
-        new(quiet ? TextWriter.Null : Console.Error, !Console.IsErrorRedirected, plainEverySeconds);
+    public static ProgressReporter ForConsole(double plainEverySeconds, bool quiet, Action<string>? record = null) =>
+        new(quiet ? TextWriter.Null : Console.Error, !Console.IsErrorRedirected, plainEverySeconds) { Record = record };
+
+    /// <summary>
+    /// Called with each progress line's text at most every <c>plainEverySeconds</c> (and on forced updates), live bar or
+    /// not, so the run's JSON log records the same events as a batch log; null: not recorded.
+    /// </summary>
+    public Action<string>? Record { get; init; }
 
     public void Update(ITrainer trainer, double progress, bool force = false)
     {
         if (!_live && _plainEverySeconds <= 0) return; // logging.progress_seconds: 0 means no plain progress lines
         double now = _clock.Elapsed.TotalSeconds;
         double every = _live ? 0.25 : _plainEverySeconds;
-        if (!force && now - _lastDraw < every) return;
-        _lastDraw = now;
+        bool draw = force || now - _lastDraw >= every;
+        bool record = Record is not null && _plainEverySeconds > 0 && (force || now - _lastRecord >= _plainEverySeconds);
+        if (!draw && !record) return;
         var c = trainer.Counters;
         if (_stepsAtStart < 0) (_stepsAtStart, _secondsAtStart) = (c.EnvSteps, now);
         // Steps since the first report of this process (a resumed run counts from the resume); "-" until some are done.
@@ -51,6 +59,14 @@ public sealed class ProgressReporter
         string eta = elapsedFraction > 0.001 && elapsedFraction < 1 ? FormatSeconds(now / elapsedFraction * (1 - elapsedFraction)) : "-";
         string text = string.Create(CultureInfo.InvariantCulture,
             $"steps {c.EnvSteps} | episodes {c.Episodes}{(c.Generations > 0 ? $" | gen {c.Generations}" : "")} | return {ret} | eval {eval} | {explore} | {rate} steps/s | ETA {eta}");
+        string plain = string.Create(CultureInfo.InvariantCulture, $"progress {progress * 100:0.0}% {text}");
+        if (record)
+        {
+            _lastRecord = now;
+            Record!(plain);
+        }
+        if (!draw) return;
+        _lastDraw = now;
         if (_live)
         {
             const int width = 24;
@@ -60,7 +76,7 @@ public sealed class ProgressReporter
         }
         else
         {
-            _out.WriteLine($"progress {progress * 100:0.0}% {text}");
+            _out.WriteLine(plain);
         }
         _out.Flush();
     }

@@ -134,7 +134,10 @@ public sealed class TrainingSession
 
         using (metrics)
         {
-            var progress = ProgressReporter.ForConsole(_spec.Logging.ProgressSeconds, _verbosity == Verbosity.Quiet);
+            // Progress lines also go to the JSON log (the console sink leaves them out: the reporter draws them there).
+            var progressLog = log.ForContext(LogSetup.ProgressProperty, true);
+            var progress = ProgressReporter.ForConsole(_spec.Logging.ProgressSeconds, _verbosity == Verbosity.Quiet,
+                line => progressLog.Information("{Progress}", line));
             var sink = new RunFolderSink(this, metrics, runLock, log, progress, bestEvaluation);
             var loop = new TrainingLoop(trainer, components.Budget, new TrainingSchedule(_spec.Logging.MetricsEverySteps, _spec.Logging.CheckpointEverySteps), sink);
             if (loopState is not null) loop.LoadState(new BinaryReader(new MemoryStream(loopState)));

@@ -39,10 +39,15 @@ public static class LogSetup
     public static Logger CreateForRun(Verbosity verbosity, string jsonLogPath) =>
         new LoggerConfiguration()
             .MinimumLevel.Debug()
-            .WriteTo.Console(
-                outputTemplate: "{Timestamp:HH:mm:ss} {Level:u3} {Message:lj}{NewLine}{Exception}",
-                restrictedToMinimumLevel: ConsoleLevel(verbosity),
-                standardErrorFromLevel: LogEventLevel.Verbose)
+            .WriteTo.Logger(console => console
+                .Filter.ByExcluding(e => e.Properties.ContainsKey(ProgressProperty))
+                .WriteTo.Console(
+                    outputTemplate: "{Timestamp:HH:mm:ss} {Level:u3} {Message:lj}{NewLine}{Exception}",
+                    restrictedToMinimumLevel: ConsoleLevel(verbosity),
+                    standardErrorFromLevel: LogEventLevel.Verbose))
             .WriteTo.File(new CompactJsonFormatter(), jsonLogPath, flushToDiskInterval: TimeSpan.FromSeconds(2))
             .CreateLogger();
+
+    /// <summary>Marks progress-line events: they go to the JSON log only (the progress reporter draws them on the console).</summary>
+    public const string ProgressProperty = "ProgressLine";
 }

@@ -276,6 +276,10 @@ public sealed class ExternalEnvironmentTests : IDisposable
         using (var failed = JsonDocument.Parse(File.ReadAllText(Path.Combine(run, "failed.json"))))
             Assert.Contains("exit code 5", failed.RootElement.GetProperty("message").GetString());
         Assert.False(File.Exists(Path.Combine(run, "summary.json")));
+        // the JSON log records the progress lines too (the first update always is), and the failure
+        string log = File.ReadAllText(Path.Combine(run, "log.json"));
+        Assert.Contains("\"ProgressLine\":true", log);
+        Assert.Contains("motor driver fault", log);
         using var newest = CheckpointStore.OpenNewestValid(Path.Combine(run, "checkpoints"), out var rejected);
         Assert.Empty(rejected);
         Assert.NotNull(newest);

@@ -145,4 +145,27 @@ public sealed class ProgressReporterTests
         Assert.Equal(2, Lines(w).Length);
         Assert.EndsWith(w.NewLine, w.ToString(), StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Recorded_lines_follow_the_plain_interval_also_under_a_live_bar()
+    {
+        using var c = Build();
+        var w = new StringWriter();
+        var recorded = new List<string>();
+        var reporter = new ProgressReporter(w, liveTerminal: true, plainEverySeconds: 3600) { Record = recorded.Add };
+        RunUnits(c, 4);
+        Report(reporter, c, force: false); // first update: bar drawn and line recorded
+        RunUnits(c, 4);
+        Report(reporter, c, force: false); // within the hour: not recorded again (the bar may redraw)
+        Assert.Single(recorded);
+        Report(reporter, c, force: true);
+        Assert.Equal(2, recorded.Count);
+        // the recorded text is the plain line, whatever the console shows
+        Assert.StartsWith("progress 10.0% steps 4 | ", recorded[0], StringComparison.Ordinal);
+        Assert.StartsWith("progress 20.0% steps 8 | ", recorded[1], StringComparison.Ordinal);
+        Assert.Contains("\r[", w.ToString()); // the console got the live bar
+        var none = new List<string>();
+        Report(new ProgressReporter(new StringWriter(), liveTerminal: true, plainEverySeconds: 0) { Record = none.Add }, c, force: true);
+        Assert.Empty(none); // logging.progress_seconds 0: no progress events in the log either
+    }
 }
