@@ -59,7 +59,8 @@ public class StateVectorTests
         var bell = StateVectorSimulator.Run(new CircuitBuilder(2).H(0).CNOT(0, 1).Build(), [], []);
         Assert.Equal(r, bell[0].Real, 14); Assert.Equal(0, bell[1].Magnitude, 14);
         Assert.Equal(0, bell[2].Magnitude, 14); Assert.Equal(r, bell[3].Real, 14);
-        // GHZ (N&C exercise 4.x, from memory): (|000⟩ + |111⟩)/√2.
+        // GHZ state (Greenberger, Horne & Zeilinger 1989): extending the §1.3.6 Bell circuit with a second CNOT gives
+        // (|000⟩ + |111⟩)/√2; hand-worked: H|0⟩ = (|0⟩+|1⟩)/√2, and each CNOT copies the basis value of its control.
         var ghz = StateVectorSimulator.Run(new CircuitBuilder(3).H(0).CNOT(0, 1).CNOT(1, 2).Build(), [], []);
         for (int j = 0; j < 8; j++) Assert.Equal(j == 0 || j == 7 ? r : 0, ghz[j].Magnitude, 14);
         var ev = ExpectationEvaluatorFactory.Create(new CircuitBuilder(3).H(0).CNOT(0, 1).CNOT(1, 2).Build(),
