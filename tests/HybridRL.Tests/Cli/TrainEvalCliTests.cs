@@ -85,6 +85,23 @@ public sealed class TrainEvalCliTests(QuickstartRunFixture run) : IClassFixture<
     }
 
     [Fact]
+    public void Eval_under_noise_records_the_changed_settings()
+    {
+        Assert.True(run.ExitCode == 0, run.Stderr);
+        var (code, stdout, stderr) = InProcessCli.Run("eval", run.RunDir, "--episodes", "3", "--checkpoint", "latest",
+            "--set", "model.simulation.mode=density_matrix", "--set", "model.simulation.noise.depolarizing=0.3", "--set", "model.simulation.gradient=parameter_shift");
+        Assert.True(code == 0, stderr);
+        var file = Assert.Single(Directory.GetFiles(run.RunDir, "eval-latest-*depolarizing*.json"));
+        var r = EvaluationResult.FromJson(File.ReadAllText(file));
+        Assert.Equal(3, r.Episodes);
+        Assert.Equal("0.3", r.SettingsChanged["model.simulation.noise.depolarizing"].After);
+        Assert.Equal("density_matrix", r.SettingsChanged["model.simulation.mode"].After);
+        Assert.Equal(r.EnvSteps, r.CircuitExecutions); // exact expectations of the noisy state: one execution per step, no shots
+        Assert.Equal(0, r.Shots);
+        Assert.Contains(Path.GetFileName(file), stdout);
+    }
+
+    [Fact]
     public void Eval_refuses_a_changed_training_key_and_names_it()
     {
         Assert.True(run.ExitCode == 0, run.Stderr);
