@@ -36,7 +36,7 @@ public sealed class ExternalEnvironmentTests : IDisposable
     }
 
     /// <summary>A child that answers the handshake (3 observations, 2 actions) and reset normally, and steps with <paramref name="stepReply"/> (Python).</summary>
-    private string Script(string name, string stepReply)
+    private string Script(string name, string stepReply, bool deterministic = true)
     {
         string path = _dir.Combine(name + ".py");
         File.WriteAllText(path, $$"""
@@ -45,7 +45,7 @@ public sealed class ExternalEnvironmentTests : IDisposable
                 m = json.loads(line)
                 op = m.get("op")
                 if op == "hello":
-                    print(json.dumps({"observation_size": 3, "action_count": 2, "deterministic": True}), flush=True)
+                    print(json.dumps({"observation_size": 3, "action_count": 2, "deterministic": {{(deterministic ? "True" : "False")}}}), flush=True)
                 elif op == "reset":
                     print(json.dumps({"observation": [0.0, 0.5, 1.0]}), flush=True)
                 elif op == "step":
@@ -183,37 +183,52 @@ public sealed class ExternalEnvironmentTests : IDisposable
     [Fact]
     public void Deep_q_run_on_a_child_that_is_not_deterministic_stops_at_its_first_checkpoint_with_the_reason()
     {
-        string script = Script("undeclared", "print(json.dumps({'observation': [0.0, 0.5, 1.0], 'reward': 0.0, 'terminal': False}), flush=True)");
-        File.WriteAllText(script["python3 ".Length..], File.ReadAllText(script["python3 ".Length..]).Replace("\"deterministic\": True", "\"deterministic\": False"));
+        string script = Script("undeclared", "print(json.dumps({'observation': [0.0, 0.5, 1.0], 'reward': 0.0, 'terminal': False}), flush=True)", deterministic: false);
+        var (output, _) = TrainExpectingFailure("undeclared", script, hidden: 4, envSteps: 200, "metrics_every_steps: 50");
+        Assert.Contains("cannot checkpoint this deep-Q run: environment 'external' cannot save its state mid-episode", output);
+        Assert.Contains("\"deterministic\": true", output);
+    }
+
+    /// <summary>
+    /// Trains a small deep-Q run on <paramref name="command"/> through the real CLI and checks what every failed run shows:
+    /// exit code 1, a plain message (no "unexpected failure", no stack trace) and failed.json. Returns the output and the run folder.
+    /// </summary>
+    private (string Output, string RunDir) TrainExpectingFailure(string name, string command, int hidden, int envSteps, string logging)
+    {
         File.WriteAllText(_dir.Combine("run.yaml"), $"""
             experiment:
-              name: undeclared
+              name: {name}
+              seed: 2
               budget:
-                env_steps: 200
+                env_steps: {envSteps}
             environment:
               kind: external
-              command: {script}
+              command: {command}
             model:
               kind: classical
               classical:
-                hidden_sizes: [4]
+                hidden_sizes: [{hidden}]
             trainer:
               kind: dqn
               dqn:
-                warmup_steps: 20
+                replay_capacity: 400
+                warmup_steps: 40
                 batch_size: 8
                 eval_every: 0
             logging:
+              {logging}
               checkpoint_every_steps: 50
               final_eval_episodes: 0
             """);
-        var (code, stdout, stderr) = CliProcess.Run(["train", _dir.Combine("run.yaml"), "--runs-dir", _dir.Combine("runs"), "--run-id", "r1"], TimeSpan.FromMinutes(2));
+        var (code, stdout, stderr) = CliProcess.Run(["train", _dir.Combine("run.yaml"), "--runs-dir", _dir.Combine("runs"), "--run-id", "r1"], TimeSpan.FromMinutes(3));
         string output = stdout + stderr;
         Assert.True(code == 1, $"exit code {code}\n{output}");
-        Assert.Contains("cannot checkpoint this deep-Q run: environment 'external' cannot save its state mid-episode", output);
-        Assert.Contains("\"deterministic\": true", output);
         Assert.DoesNotContain("unexpected failure", output);
-        Assert.True(File.Exists(_dir.Combine("runs", "undeclared", "r1", "failed.json")));
+        Assert.DoesNotContain("   at ", output); // no stack trace
+        string run = _dir.Combine("runs", name, "r1");
+        Assert.True(File.Exists(Path.Combine(run, "failed.json")), output);
+        Assert.False(File.Exists(Path.Combine(run, "summary.json")));
+        return (output, run);
     }
 
     [Fact]
@@ -240,42 +255,11 @@ public sealed class ExternalEnvironmentTests : IDisposable
                 elif op == "close":
                     break
             """);
-        File.WriteAllText(_dir.Combine("run.yaml"), $"""
-            experiment:
-              name: child-dies
-              seed: 2
-              budget:
-                env_steps: 400
-            environment:
-              kind: external
-              command: python3 {script}
-            model:
-              kind: classical
-              classical:
-                hidden_sizes: [8]
-            trainer:
-              kind: dqn
-              dqn:
-                replay_capacity: 400
-                warmup_steps: 40
-                batch_size: 8
-                eval_every: 0
-            logging:
-              metrics_every_steps: 25
-              checkpoint_every_steps: 50
-              final_eval_episodes: 0
-            """);
-        var (code, stdout, stderr) = CliProcess.Run(["train", _dir.Combine("run.yaml"), "--runs-dir", _dir.Combine("runs"), "--run-id", "r1"], TimeSpan.FromMinutes(3));
-        string output = stdout + stderr;
-        Assert.True(code == 1, $"exit code {code}\n{output}");
+        var (output, run) = TrainExpectingFailure("child-dies", $"python3 {script}", hidden: 8, envSteps: 400, "metrics_every_steps: 25");
         Assert.Contains("the child closed its output while the bridge waited for a reply to 'step' (exit code 5)", output);
         Assert.Contains("motor driver fault", output);
-        Assert.DoesNotContain("unexpected failure", output);
-        Assert.DoesNotContain("   at ", output); // no stack trace
-        string run = _dir.Combine("runs", "child-dies", "r1");
         using (var failed = JsonDocument.Parse(File.ReadAllText(Path.Combine(run, "failed.json"))))
             Assert.Contains("exit code 5", failed.RootElement.GetProperty("message").GetString());
-        Assert.False(File.Exists(Path.Combine(run, "summary.json")));
         // the JSON log records the progress lines too (the first update always is), and the failure
         string log = File.ReadAllText(Path.Combine(run, "log.json"));
         Assert.Contains("\"ProgressLine\":true", log);
