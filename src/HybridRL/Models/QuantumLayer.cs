@@ -72,7 +72,6 @@ public sealed class QuantumLayer : nn.Module<Tensor, Tensor>
     public int CircuitParameterCount => _circuitCount;
     public int ReadoutParameterCount => _fixedReadout is null ? _readoutWeightCount + OutputCount : 0;
     public int ParameterCount => _circuitCount + ReadoutParameterCount;
-    public bool TrainableReadout => _fixedReadout is null;
     public Parameter Weights => _weights;
 
     /// <summary>Hardware circuit executions one input row's gradient would cost (parameter shift × measurement settings).</summary>
